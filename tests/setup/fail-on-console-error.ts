@@ -1,0 +1,16 @@
+import { afterEach, beforeEach, vi } from 'vitest';
+
+// A console.error during a test is a bug we have not noticed yet: fail loudly.
+let errors: unknown[][] = [];
+beforeEach(() => {
+  errors = [];
+  vi.spyOn(console, 'error').mockImplementation((...args: unknown[]) => {
+    errors.push(args);
+  });
+});
+afterEach(() => {
+  vi.restoreAllMocks();
+  if (errors.length > 0) {
+    throw new Error(`console.error was called during the test:\n${errors.map((a) => a.map(String).join(' ')).join('\n')}`);
+  }
+});
