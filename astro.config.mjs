@@ -1,0 +1,27 @@
+// @ts-check
+import { defineConfig } from 'astro/config';
+import node from '@astrojs/node';
+import react from '@astrojs/react';
+import tailwind from '@astrojs/tailwind';
+import auth from 'auth-astro';
+
+// Astro builds request URLs as http://localhost unless the host is listed here, and then
+// refuses every form POST from 127.0.0.1 as cross-site. List the hosts we serve on.
+const appHost = process.env.APP_URL ? new URL(process.env.APP_URL).hostname : null;
+const hosts = [...new Set(['127.0.0.1', 'localhost', ...(appHost ? [appHost] : [])])];
+
+export default defineConfig({
+  output: 'server',
+  adapter: node({ mode: 'standalone' }),
+  integrations: [react(), tailwind({ applyBaseStyles: false }), auth()],
+  security: {
+    checkOrigin: true,
+    allowedDomains: hosts.map((hostname) => ({ hostname })),
+  },
+  server: { host: '127.0.0.1', port: Number(process.env.PORT ?? 4321) },
+  telemetry: false,
+  devToolbar: { enabled: false },
+  vite: {
+    ssr: { external: ['sharp', '@node-rs/argon2'] },
+  },
+});

@@ -1,0 +1,77 @@
+#!/usr/bin/env node
+// `npm start`: everything from a fresh clone to a running Groundwork on http://127.0.0.1:4321.
+import { join } from 'node:path';
+import {
+  build, ensureNodeModules, localSecret, log, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp,
+} from './lib/stack.mjs';
+
+const port = Number(process.env.PORT ?? 4321);
+const pgPort = Number(process.env.PGPORT ?? 54329);
+const smtpPort = Number(process.env.FAKE_SMTP_PORT ?? 1025);
+const mailHttpPort = Number(process.env.FAKE_MAIL_HTTP_PORT ?? 1080);
+const demoPassword = process.env.DEMO_PASSWORD ?? 'groundwork-demo';
+
+ensureNodeModules();
+const db = process.env.DATABASE_URL
+  ? { url: process.env.DATABASE_URL, stop: () => {} }
+  : await startDatabase({
+      dataDir: join(root, '.data', 'pg'),
+      fallbackName: 'groundwork-pg-data',
+      port: pgPort,
+      database: 'groundwork',
+      password: localSecret('pg-password'),
+      durable: true,
+    });
+
+let stopping = false;
+async function shutdown(code = 0) {
+  if (stopping) return;
+  stopping = true;
+  log('Stopping…');
+  await stopChildren();
+  db.stop();
+  process.exit(code);
+}
+process.on('SIGINT', () => shutdown(0));
+process.on('SIGTERM', () => shutdown(0));
+
+try {
+  await migrate(db.url);
+  const appUrl = process.env.APP_URL ?? `http://127.0.0.1:${port}`;
+  const env = {
+    DATABASE_URL: db.url,
+    AUTH_SECRET: process.env.AUTH_SECRET ?? localSecret('auth-secret'),
+    AUTH_TRUST_HOST: 'true',
+    APP_URL: appUrl,
+    SMTP_HOST: process.env.SMTP_HOST ?? '127.0.0.1',
+    SMTP_PORT: String(process.env.SMTP_PORT ?? smtpPort),
+    UPLOAD_DIR: process.env.UPLOAD_DIR ?? join(root, '.data', 'uploads'),
+    DEMO_PASSWORD: demoPassword,
+    HOST: '127.0.0.1',
+    PORT: String(port),
+  };
+  runTsx('seeds/run.ts', { ...env, SEED_ONLY_IF_EMPTY: '1' });
+  if (!process.env.SMTP_HOST) {
+    startChild('fake mail', 'node', ['fake-services/mail-server.mjs'], {
+      env: { FAKE_SMTP_PORT: String(smtpPort), FAKE_MAIL_HTTP_PORT: String(mailHttpPort) },
+    });
+  }
+  build();
+  startChild('app', 'node', ['dist/server/entry.mjs'], { env, quiet: true });
+  await waitForHttp(`${appUrl}/api/health`);
+  console.log(`
+  Groundwork is running at ${appUrl}
+  Local test inbox (every e-mail the app sends): http://127.0.0.1:${mailHttpPort}
+
+  Demo sign-ins
+    Office admin   admin@example.com      password: ${demoPassword}
+    Surveyor       surveyor@example.com   password: ${demoPassword}
+    Customer       customer@example.com   (e-mailed sign-in link: open the test inbox)
+    Customer       customer2@example.com  (e-mailed sign-in link)
+
+  Press Ctrl-C to stop.
+`);
+} catch (err) {
+  console.error(err instanceof Error ? err.message : err);
+  await shutdown(1);
+}

@@ -1,0 +1,66 @@
+// Test-data factories shared by the demo seed and the tests. Every value is invented.
+import bcrypt from 'bcryptjs';
+import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
+import { auditLog, cases, users, type Role, type Stage } from '../src/db/schema';
+import { newCaseReference } from '../src/lib/case-reference';
+
+type Db = PostgresJsDatabase<Record<string, unknown>>;
+
+let counter = 0;
+const unique = () => `${Date.now().toString(36)}${(counter++).toString(36)}${Math.floor(Math.random() * 1e6).toString(36)}`;
+
+export type UserInput = { role?: Role; email?: string; name?: string; password?: string; active?: boolean; phone?: string };
+
+/** Inserts a user; staff get a bcrypt-hashed password. */
+export async function createUser(db: Db, input: UserInput = {}) {
+  const role = input.role ?? 'customer';
+  const email = (input.email ?? `${role}-${unique()}@example.com`).toLowerCase();
+  const passwordHash = input.password ? await bcrypt.hash(input.password, role === 'customer' ? 4 : 10) : null;
+  const [row] = await db
+    .insert(users)
+    .values({ role, email, name: input.name ?? `Test ${role}`, passwordHash, active: input.active ?? true, phone: input.phone })
+    .returning();
+  return row!;
+}
+
+export type CaseInput = {
+  customerId: string;
+  stage?: Stage;
+  addressLine1?: string;
+  town?: string;
+  postcode?: string;
+  checklist?: Record<string, unknown>;
+  surveyorId?: string | null;
+  surveyDate?: string | null;
+  invitedDaysAgo?: number;
+};
+
+/** Inserts a case with a fresh reference, and the audit row an invitation makes. */
+export async function createCase(db: Db, input: CaseInput) {
+  const invitedAt = new Date(Date.now() - (input.invitedDaysAgo ?? 0) * 86_400_000);
+  for (let attempt = 0; ; attempt++) {
+    try {
+      const [row] = await db
+        .insert(cases)
+        .values({
+          reference: newCaseReference(),
+          customerId: input.customerId,
+          stage: input.stage ?? 'invited',
+          addressLine1: input.addressLine1,
+          town: input.town,
+          postcode: input.postcode,
+          checklist: input.checklist ?? {},
+          surveyorId: input.surveyorId ?? null,
+          surveyDate: input.surveyDate ?? null,
+          invitedAt,
+        })
+        .returning();
+      await db.insert(auditLog).values({ caseId: row!.id, action: 'case.created', entity: 'case', entityId: row!.id, after: { stage: row!.stage } });
+      return row!;
+    } catch (err) {
+      // A reference collision is vanishingly rare; try a new one.
+      if (attempt < 3 && String(err).includes('cases_reference_unique')) continue;
+      throw err;
+    }
+  }
+}

@@ -1,0 +1,75 @@
+// Network operator: can the job install and notify within 28 days, or must it apply first?
+import { checkMpanCore } from '../../validation/mpan';
+import { decideNetworkRoute, ENA_SOURCE, type NetworkRouteDecision } from '../network-route';
+import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
+import type { CheckInput, CheckResult, Light } from '../types';
+
+const SOURCE = `${ENA_SOURCE}; lead time of a supply upgrade: ${COMMON_PRACTICE}`;
+
+/**
+ * Notify-after and settled is green; apply-before, or anything still unknown, is amber.
+ *
+ * @example checkNetworkOperator({ answers: { supply: { mainFuseAmps: 100, looped: 'yes', loads: {} } }, uploads: [], settings: defaultReadinessSettings, today: '2025-01-01' }).figures.route
+ * // 'apply-before'
+ */
+export function checkNetworkOperator({ answers, settings }: CheckInput): CheckResult {
+  const decision = decideNetworkRoute(answers, settings);
+  const light: Light = decision.route === 'notify-after' && decision.settled ? 'green' : 'amber';
+  const region = regionOf(answers.supply?.mpanCore);
+  return {
+    id: 'network-operator',
+    light,
+    title: 'Telling the network operator',
+    customerText: customerText(decision, settings),
+    staffText: staffText(decision, region, settings),
+    figures: {
+      route: decision.route,
+      reasons: decision.reasons,
+      settled: decision.settled,
+      leadTimeDays: decision.route === 'apply-before' ? settings.supplyUpgradeLeadDays : 0,
+      notifyWithinDays: settings.notifyWithinDays,
+      assessedDemandAmps: decision.assessedDemandAmps,
+      fuseAmps: decision.fuseAmps,
+      demandLimitAmps: settings.enaDemandLimitAmps,
+      region,
+    },
+    source: SOURCE,
+    actions: actions(decision),
+  };
+}
+
+function regionOf(mpanCore: string | null | undefined): string | null {
+  if (!mpanCore) return null;
+  const checked = checkMpanCore(mpanCore);
+  return checked.ok ? checked.region : null;
+}
+
+function customerText(decision: NetworkRouteDecision, settings: ReadinessSettings): string {
+  if (decision.route === 'notify-after') {
+    const pending = decision.settled ? '' : ' We still need one or two answers about your supply to be sure.';
+    return `Your installer can fit the charger and then let your local network operator know within ${settings.notifyWithinDays} days — nothing for you to arrange.${pending}`;
+  }
+  return `Before the charger is connected, your installer needs to apply to your local network operator (the company that runs the cables to your street). That can take from under a week to about a month, so we start early — there is nothing you need to do yourself.`;
+}
+
+function staffText(decision: NetworkRouteDecision, region: string | null, settings: ReadinessSettings): string {
+  const area = region ? ` DNO region: ${region}.` : '';
+  if (decision.route === 'notify-after') {
+    const pending = decision.settled ? '' : ' Not settled: fuse, looped supply or loads still unknown.';
+    return `ENA notify-after: all notification criteria met (demand ${decision.assessedDemandAmps} A ≤ ${settings.enaDemandLimitAmps} A and within the cut-out, not looped). Notify within ${settings.notifyWithinDays} days of connection.${pending}${area}`;
+  }
+  const why = decision.reasons.map((r) => r.text).join(' ');
+  return `ENA apply-before: ${why} Allow ${settings.supplyUpgradeLeadDays} days (common practice).${area}`;
+}
+
+function actions(decision: NetworkRouteDecision): string[] {
+  const list: string[] = [];
+  const codes = new Set(decision.reasons.map((r) => r.code));
+  if (codes.has('cutout-unknown')) list.push('Send a clear photo of the cut-out so the fuse rating can be read (photos only).');
+  if (codes.has('looped-unknown')) list.push('Find out whether the supply is looped (shared with a neighbour): the surveyor or network operator can confirm.');
+  if (decision.route === 'apply-before' && (codes.has('demand-over-cutout') || codes.has('demand-over-limit') || codes.has('looped-supply'))) {
+    list.push('The office to apply to the network operator before the install date.');
+  }
+  if (decision.route === 'notify-after' && !decision.settled) list.push('Tell us about your big electrical appliances in the supply step.');
+  return list;
+}

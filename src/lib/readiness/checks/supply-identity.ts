@@ -1,0 +1,60 @@
+// Supply identity: the MPAN core is present, passes its check digit and names a region.
+import { checkMpanCore, INDEPENDENT_NETWORK } from '../../validation/mpan';
+import type { CheckInput, CheckResult } from '../types';
+
+const SOURCE =
+  'MRA/Elexon MPAN definition, as described in the Wikipedia article "Meter Point Administration Number" (check digit: weights 3, 5, 7, 13, 17, 19, 23, 29, 31, 37, 41, 43; sum mod 11 mod 10)';
+const TITLE = 'Your electricity supply number (MPAN)';
+
+/**
+ * Missing is amber; a core that fails the check is red; a valid core is green with its region.
+ *
+ * @example checkSupplyIdentity({ answers: { supply: { mpanCore: '1312345678907' } }, uploads: [], settings: defaultReadinessSettings, today: '2025-01-01' }).figures.region
+ * // 'Merseyside, Cheshire and North Wales'
+ */
+export function checkSupplyIdentity({ answers }: CheckInput): CheckResult {
+  const entered = answers.supply?.mpanCore?.trim() ?? '';
+  if (entered === '') return missingResult();
+  const checked = checkMpanCore(entered);
+  if (!checked.ok) {
+    return {
+      id: 'supply-identity',
+      light: 'red',
+      title: TITLE,
+      customerText: checked.message,
+      staffText: `MPAN core refused (${checked.reason}): "${entered}".`,
+      figures: { mpanCore: entered, valid: false, reason: checked.reason, distributorId: null, region: null },
+      source: SOURCE,
+      actions: ['Check the 13-digit MPAN core against an electricity bill and correct it.'],
+    };
+  }
+  return {
+    id: 'supply-identity',
+    light: 'green',
+    title: TITLE,
+    customerText: `Thank you — your supply number checks out. ${whereText(checked.region)}`,
+    staffText: `MPAN core ${checked.core} valid (check digit); distributor ID ${checked.distributorId}: ${checked.region}.`,
+    figures: { mpanCore: checked.core, valid: true, reason: null, distributorId: checked.distributorId, region: checked.region },
+    source: SOURCE,
+    actions: [],
+  };
+}
+
+function missingResult(): CheckResult {
+  return {
+    id: 'supply-identity',
+    light: 'amber',
+    title: TITLE,
+    customerText:
+      'We need the 13-digit MPAN core from your electricity bill: it identifies your supply and tells us which network area you are in.',
+    staffText: 'MPAN core not given.',
+    figures: { mpanCore: null, valid: null, reason: 'missing', distributorId: null, region: null },
+    source: SOURCE,
+    actions: ['Enter the 13-digit MPAN core from an electricity bill (the bottom line of the MPAN box).'],
+  };
+}
+
+function whereText(region: string): string {
+  if (region === INDEPENDENT_NETWORK) return 'Your home is on an independent network.';
+  return `Your home is in the ${region} distribution region.`;
+}

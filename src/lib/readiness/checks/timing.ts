@@ -1,0 +1,94 @@
+// Timing: can the survey, the install and any network-operator step fit before the car arrives?
+import { addDays, isoDayNumber } from '../dates';
+import { decideNetworkRoute, ENA_SOURCE } from '../network-route';
+import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
+import type { CheckInput, CheckResult, Light } from '../types';
+
+const SOURCE = `Lead times from settings (${COMMON_PRACTICE}); network operator step: ${ENA_SOURCE}`;
+const TITLE = 'Ready before your car arrives';
+
+export interface LeadTime {
+  surveyLeadDays: number;
+  installLeadDays: number;
+  supplyUpgradeLeadDays: number;
+  totalLeadDays: number;
+}
+
+/**
+ * Calendar days from today to the earliest install: survey + install, plus the supply-upgrade
+ * lead time when the network operator must be applied to first. Weekends are not skipped.
+ *
+ * @example leadTime(defaultReadinessSettings, true).totalLeadDays // 7 + 14 + 28 = 49
+ */
+export function leadTime(settings: ReadinessSettings, applyBefore: boolean): LeadTime {
+  const supplyUpgradeLeadDays = applyBefore ? settings.supplyUpgradeLeadDays : 0;
+  return {
+    surveyLeadDays: settings.surveyLeadDays,
+    installLeadDays: settings.installLeadDays,
+    supplyUpgradeLeadDays,
+    totalLeadDays: settings.surveyLeadDays + settings.installLeadDays + supplyUpgradeLeadDays,
+  };
+}
+
+/**
+ * The light for the spare days between the earliest install and delivery: negative is red,
+ * fewer than the slack is amber, otherwise green.
+ *
+ * @example timingLight(0, 7) // 'amber' (install on the delivery day itself)
+ */
+export function timingLight(spareDays: number, slackDays: number): Light {
+  if (spareDays < 0) return 'red';
+  return spareDays < slackDays ? 'amber' : 'green';
+}
+
+/**
+ * Compares the delivery date with today plus the lead times. A missing date is amber; a car
+ * already delivered (date today or earlier) is amber "as soon as possible" — nothing can be
+ * rescheduled any more, so it is not a blocker.
+ *
+ * @example checkTiming({ answers: { vehicle: { deliveryDate: '2025-03-01' }, supply: { mainFuseAmps: 100, looped: 'no', loads: {} } }, uploads: [], settings: defaultReadinessSettings, today: '2025-01-01' }).light
+ * // 'green' (59 days to delivery, 21 days lead, 38 spare)
+ */
+export function checkTiming({ answers, settings, today }: CheckInput): CheckResult {
+  const todayDay = isoDayNumber(today);
+  if (todayDay === null) throw new RangeError(`today must be a YYYY-MM-DD date, not ${today}`);
+  const route = decideNetworkRoute(answers, settings);
+  const lead = leadTime(settings, route.route === 'apply-before');
+  const earliestInstallDate = addDays(today, lead.totalLeadDays);
+  const deliveryDate = answers.vehicle?.deliveryDate ?? null;
+  const deliveryDay = isoDayNumber(deliveryDate);
+  const base = { today, deliveryDate, ...lead, networkRoute: route.route, earliestInstallDate, slackDays: settings.timingSlackDays };
+  if (deliveryDay === null) {
+    return result('amber', 'Please tell us when you expect the car, so we can plan the survey and install in time.', `Delivery date ${deliveryDate ? `"${deliveryDate}" is not a date` : 'not given'}. Earliest install ${earliestInstallDate} (${lead.totalLeadDays} days).`, { ...base, daysUntilDelivery: null, spareDays: null }, ['Enter the expected delivery date.']);
+  }
+  const daysUntilDelivery = deliveryDay - todayDay;
+  const spareDays = daysUntilDelivery - lead.totalLeadDays;
+  const figures = { ...base, daysUntilDelivery, spareDays };
+  if (daysUntilDelivery <= 0) {
+    return result('amber', "Your car is already with you (or arrives today), so we'll get the charger fitted as soon as we can. Until then, please charge only as the car maker advises.", `Car delivered or due today (${deliveryDate}); earliest install ${earliestInstallDate}. Book as soon as possible.`, figures, ['Book the survey as soon as possible.']);
+  }
+  const light = timingLight(spareDays, settings.timingSlackDays);
+  return result(light, customerText(light, spareDays, route.route === 'apply-before'), staffText(figures, settings), figures, actions(light));
+}
+
+function customerText(light: Light, spareDays: number, applyBefore: boolean): string {
+  const network = applyBefore ? ', including the time your network operator needs,' : '';
+  if (light === 'green') return `There is time to survey and fit the charger${network} before your car arrives, with about ${spareDays} days to spare.`;
+  if (light === 'amber') return `The survey and install${network} should just fit before your car arrives, with only ${spareDays} day${spareDays === 1 ? '' : 's'} to spare. Sending the rest of your answers soon helps.`;
+  return `The survey and install${network} will probably take longer than the time before your car arrives — about ${-spareDays} day${spareDays === -1 ? '' : 's'} too long. We'll do all we can; please send the rest of your answers as soon as possible.`;
+}
+
+function staffText(figures: { daysUntilDelivery: number; totalLeadDays: number; spareDays: number; earliestInstallDate: string; supplyUpgradeLeadDays: number; deliveryDate: string | null }, settings: ReadinessSettings): string {
+  const upgrade = figures.supplyUpgradeLeadDays > 0 ? ` + ${figures.supplyUpgradeLeadDays} DNO (apply-before)` : '';
+  return `Delivery ${figures.deliveryDate} in ${figures.daysUntilDelivery} days; lead ${figures.totalLeadDays} days (${settings.surveyLeadDays} survey + ${settings.installLeadDays} install${upgrade}, calendar days); earliest install ${figures.earliestInstallDate}; spare ${figures.spareDays} days (slack ${settings.timingSlackDays}).`;
+}
+
+function actions(light: Light): string[] {
+  if (light === 'green') return [];
+  if (light === 'amber') return ['Send the remaining answers promptly so the survey can be booked without delay.'];
+  return ['Book the survey at the earliest slot, and start any network operator application now.'];
+}
+
+function result(light: Light, customerText: string, staffText: string, figures: Record<string, unknown>, actions: string[]): CheckResult {
+  return { id: 'timing', light, title: TITLE, customerText, staffText, figures, source: SOURCE, actions };
+}

@@ -1,0 +1,394 @@
+// The driveway plan and its geometry: where the car's charge port ends up for each way of
+// parking, and how much cable it takes to reach it from the charge point.
+//
+// Plan convention, in metres, viewed from above: the house wall runs along y = 0 with the
+// house at y < 0; y grows away from the house; x grows to the right of someone standing at
+// the wall looking out over the drive. (A screen that draws y downward should draw (x, -y)
+// flipped top to bottom, i.e. the house along the bottom edge, or the sides will swap.)
+// A car's "left" and "right" are as seen from the driver's seat looking forward.
+import type { ChargePort, ParkingHabit, ParkingWay } from './types';
+import { defaultReadinessSettings } from './settings';
+import { roundTo } from './units';
+
+export interface Point {
+  x: number;
+  y: number;
+}
+
+/** The house wall: the segment of y = 0 from x0 to x1. */
+export interface PlanWall {
+  x0: number;
+  x1: number;
+}
+
+/**
+ * A parking bay. Angle 0: its length runs away from the wall, covering x..x+width and
+ * y..y+length, and a car parked nose-in faces the wall. Angle 90: its length runs along the
+ * wall, covering x..x+length and y..y+width, and a car parked nose-in entered from `entry`
+ * (default 'left', the smaller-x end) so it faces the other end.
+ */
+export interface PlanBay {
+  x: number;
+  y: number;
+  width: number;
+  length: number;
+  angle: 0 | 90;
+  entry?: 'left' | 'right' | null;
+  /** Marks the bay the electric car uses; when no bay is marked, every bay must reach. */
+  forEv?: boolean | null;
+}
+
+export type CarSizeClass = 'small' | 'medium' | 'large' | 'custom';
+
+export interface PlanCar {
+  sizeClass: CarSizeClass;
+  /** Overrides the size class's length when given. */
+  lengthM?: number | null;
+  /** Overrides the size class's width (body, mirrors folded) when given. */
+  widthM?: number | null;
+}
+
+export interface DrivewayPlan {
+  wall: PlanWall;
+  chargePoint: Point;
+  bays: PlanBay[];
+  car: PlanCar;
+  /** The charge port as picked on the plan; falls back to the vehicle step's answer. */
+  chargePort?: ChargePort | null;
+}
+
+export interface CarSize {
+  lengthM: number;
+  widthM: number;
+}
+
+/**
+ * Typical body sizes of cars on sale, mirrors folded. From memory, not a published source:
+ * starting values the customer can edit. 'custom' starts from the medium size.
+ */
+export const carSizeDefaults: Readonly<Record<CarSizeClass, CarSize>> = Object.freeze({
+  small: { lengthM: 4.0, widthM: 1.8 },
+  medium: { lengthM: 4.5, widthM: 1.85 },
+  large: { lengthM: 4.9, widthM: 1.95 },
+  custom: { lengthM: 4.5, widthM: 1.85 },
+});
+
+/** An axis-aligned rectangle (bays are at 0 or 90 degrees, so cars are too). */
+export interface Rect {
+  minX: number;
+  minY: number;
+  maxX: number;
+  maxY: number;
+}
+
+/**
+ * The car's size: the customer's own figures where given, else the size class's default.
+ *
+ * @example carSize({ sizeClass: 'small' }) // { lengthM: 4, widthM: 1.8 }
+ */
+export function carSize(car: PlanCar): CarSize {
+  const base = carSizeDefaults[car.sizeClass] ?? carSizeDefaults.medium;
+  return {
+    lengthM: positive(car.lengthM) ?? base.lengthM,
+    widthM: positive(car.widthM) ?? base.widthM,
+  };
+}
+
+/**
+ * The ways the car must be checked for: "varies" means both.
+ *
+ * @example parkingWays('varies') // ['nose-in', 'reverse-in']
+ */
+export function parkingWays(habit: ParkingHabit | null | undefined): ParkingWay[] {
+  if (habit === 'nose-in' || habit === 'reverse-in') return [habit];
+  return ['nose-in', 'reverse-in'];
+}
+
+/**
+ * The bay's centre, where the car is parked.
+ *
+ * @example bayCentre({ x: 0, y: 0.5, width: 2.4, length: 4.8, angle: 0 }) // { x: 1.2, y: 2.9 }
+ */
+export function bayCentre(bay: PlanBay): Point {
+  const spanX = bay.angle === 0 ? bay.width : bay.length;
+  const spanY = bay.angle === 0 ? bay.length : bay.width;
+  return { x: bay.x + spanX / 2, y: bay.y + spanY / 2 };
+}
+
+/**
+ * The unit vector the car's nose points along, for a bay and a way of parking.
+ *
+ * @example carForward({ x: 0, y: 0, width: 2.4, length: 4.8, angle: 0 }, 'nose-in') // { x: 0, y: -1 }
+ */
+export function carForward(bay: PlanBay, way: ParkingWay): Point {
+  const noseIn: Point = bay.angle === 0 ? { x: 0, y: -1 } : { x: bay.entry === 'right' ? -1 : 1, y: 0 };
+  return way === 'nose-in' ? noseIn : { x: -noseIn.x, y: -noseIn.y };
+}
+
+/**
+ * The driver's left, a quarter turn anticlockwise from forward when viewed from above.
+ *
+ * @example carLeft({ x: 0, y: 1 }) // { x: -1, y: 0 } (facing away from the house, left is −x)
+ */
+export function carLeft(forward: Point): Point {
+  return { x: -forward.y + 0, y: forward.x + 0 };
+}
+
+/**
+ * The port's offset in the car's own frame: metres forward of the centre and metres to the
+ * driver's left. Wing ports sit `insetM` in from the bumper; side ports at mid-length.
+ *
+ * @example portOffset('front-left', { lengthM: 4.5, widthM: 1.85 }, 0.8) // { forward: 1.45, left: 0.925 }
+ */
+export function portOffset(port: ChargePort, size: CarSize, insetM: number): { forward: number; left: number } {
+  const half = size.lengthM / 2;
+  const wing = half - Math.min(insetM, half);
+  const side = size.widthM / 2;
+  const offsets: Record<ChargePort, { forward: number; left: number }> = {
+    'front-left': { forward: wing, left: side },
+    'front-right': { forward: wing, left: -side },
+    'front-centre': { forward: half, left: 0 },
+    'rear-left': { forward: -wing, left: side },
+    'rear-right': { forward: -wing, left: -side },
+    'side-left': { forward: 0, left: side },
+    'side-right': { forward: 0, left: -side },
+  };
+  return offsets[port];
+}
+
+/**
+ * Where the car's charge port is when parked in the bay that way (car centred in the bay).
+ * Null when no port is known.
+ *
+ * @example portPosition(plan, { x: 0, y: 0.5, width: 2.4, length: 4.8, angle: 0 }, 'nose-in', 'front-centre')
+ * // medium car, nose to the wall: { x: 1.2, y: 2.9 - 2.25 } = { x: 1.2, y: 0.65 }
+ */
+export function portPosition(
+  plan: DrivewayPlan,
+  bay: PlanBay,
+  way: ParkingWay,
+  port: ChargePort | null | undefined = plan.chargePort,
+  insetM: number = defaultReadinessSettings.portInsetMetres,
+): Point | null {
+  if (!port) return null;
+  const centre = bayCentre(bay);
+  const forward = carForward(bay, way);
+  const left = carLeft(forward);
+  const offset = portOffset(port, carSize(plan.car), insetM);
+  return {
+    x: centre.x + offset.forward * forward.x + offset.left * left.x,
+    y: centre.y + offset.forward * forward.y + offset.left * left.y,
+  };
+}
+
+/**
+ * The car's footprint parked in the bay (axis-aligned, centred in the bay).
+ *
+ * @example carFootprint(plan, { x: 0, y: 0.5, width: 2.4, length: 4.8, angle: 0 }) // medium: x 0.275..2.125, y 0.65..5.15
+ */
+export function carFootprint(plan: DrivewayPlan, bay: PlanBay): Rect {
+  const centre = bayCentre(bay);
+  const size = carSize(plan.car);
+  const halfX = (bay.angle === 0 ? size.widthM : size.lengthM) / 2;
+  const halfY = (bay.angle === 0 ? size.lengthM : size.widthM) / 2;
+  return { minX: centre.x - halfX, minY: centre.y - halfY, maxX: centre.x + halfX, maxY: centre.y + halfY };
+}
+
+export interface CablePath {
+  /** The path on the plan: the charge point, any corners of the car passed, the port. */
+  points: Point[];
+  planMetres: number;
+  slackMetres: number;
+  requiredMetres: number;
+}
+
+/**
+ * Cable needed from the charge point to the port: the shortest path on the plan (straight,
+ * or around the car's body when the car is in the way) plus a slack allowance so the cable
+ * droops rather than pulls taut (common practice, no published source).
+ *
+ * @example cablePath({ x: 0, y: 0 }, { x: 3, y: 4 }, { slackMetres: 1 }).requiredMetres // 5 + 1 = 6
+ */
+export function cablePath(
+  chargePoint: Point,
+  port: Point,
+  options: { slackMetres?: number; around?: Rect | null } = {},
+): CablePath {
+  const slackMetres = options.slackMetres ?? defaultReadinessSettings.cableSlackMetres;
+  const points = options.around ? shortestPathAround(chargePoint, port, options.around) : [chargePoint, port];
+  const planMetres = pathLength(points);
+  return { points, planMetres: roundTo(planMetres, 3), slackMetres, requiredMetres: roundTo(planMetres + slackMetres, 3) };
+}
+
+export interface ReachVerdict {
+  bayIndex: number;
+  way: ParkingWay;
+  port: Point;
+  path: Point[];
+  planMetres: number;
+  requiredMetres: number;
+  reaches: boolean;
+  /** How much longer the cable would need to be; 0 when it reaches. */
+  shortByMetres: number;
+}
+
+export interface ReachOptions {
+  port?: ChargePort | null;
+  slackMetres?: number;
+  portInsetMetres?: number;
+}
+
+/**
+ * Whether a cable of `cableMetres` reaches the port for each way the car parks, in each bay
+ * the electric car uses. Empty when no port is known.
+ *
+ * @example reachVerdict(plan, 5, 'varies').map((v) => v.reaches) // [true, false]: nose-in reaches, reversed does not
+ */
+export function reachVerdict(
+  plan: DrivewayPlan,
+  cableMetres: number,
+  habit: ParkingHabit | null | undefined,
+  options: ReachOptions = {},
+): ReachVerdict[] {
+  const port = options.port ?? plan.chargePort ?? null;
+  if (!port) return [];
+  const inset = options.portInsetMetres ?? defaultReadinessSettings.portInsetMetres;
+  return evBays(plan).flatMap(({ bay, index }) =>
+    parkingWays(habit).map((way) => {
+      const position = portPosition(plan, bay, way, port, inset) as Point;
+      const path = cablePath(plan.chargePoint, position, {
+        slackMetres: options.slackMetres,
+        around: carFootprint(plan, bay),
+      });
+      const reaches = path.requiredMetres <= cableMetres;
+      return {
+        bayIndex: index,
+        way,
+        port: { x: roundTo(position.x, 3), y: roundTo(position.y, 3) },
+        path: path.points.map((p) => ({ x: roundTo(p.x, 3), y: roundTo(p.y, 3) })),
+        planMetres: path.planMetres,
+        requiredMetres: path.requiredMetres,
+        reaches,
+        shortByMetres: reaches ? 0 : roundTo(path.requiredMetres - cableMetres, 3),
+      };
+    }),
+  );
+}
+
+/**
+ * Problems that stop the plan being measured; empty when it can be.
+ *
+ * @example planProblems({ ...plan, bays: [] }) // ['Add the parking bay to the plan.']
+ */
+export function planProblems(plan: DrivewayPlan): string[] {
+  const problems: string[] = [];
+  if (!isPoint(plan.chargePoint)) problems.push('Mark where you would like the charge point.');
+  if (!Array.isArray(plan.bays) || plan.bays.length === 0) problems.push('Add the parking bay to the plan.');
+  else if (!plan.bays.every(isBay)) problems.push('Give each parking bay a position, width and length.');
+  if (!plan.car || !(plan.car.sizeClass in carSizeDefaults)) problems.push("Choose your car's size.");
+  return problems;
+}
+
+function evBays(plan: DrivewayPlan): { bay: PlanBay; index: number }[] {
+  const all = plan.bays.map((bay, index) => ({ bay, index }));
+  const marked = all.filter(({ bay }) => bay.forEv === true);
+  return marked.length > 0 ? marked : all;
+}
+
+function isPoint(point: Point | null | undefined): boolean {
+  return !!point && Number.isFinite(point.x) && Number.isFinite(point.y);
+}
+
+function isBay(bay: PlanBay): boolean {
+  return isPoint(bay) && positive(bay.width) !== null && positive(bay.length) !== null && (bay.angle === 0 || bay.angle === 90);
+}
+
+function positive(value: number | null | undefined): number | null {
+  return typeof value === 'number' && Number.isFinite(value) && value > 0 ? value : null;
+}
+
+function distance(a: Point, b: Point): number {
+  return Math.hypot(b.x - a.x, b.y - a.y);
+}
+
+function pathLength(points: readonly Point[]): number {
+  return points.slice(1).reduce((total, point, i) => total + distance(points[i] as Point, point), 0);
+}
+
+const EPS = 1e-9;
+
+function strictlyInside(p: Point, r: Rect): boolean {
+  return p.x > r.minX + EPS && p.x < r.maxX - EPS && p.y > r.minY + EPS && p.y < r.maxY - EPS;
+}
+
+// Liang–Barsky clip; a convex shape's chord either lies along an edge or crosses the inside.
+function segmentCrossesInside(a: Point, b: Point, r: Rect): boolean {
+  const dx = b.x - a.x;
+  const dy = b.y - a.y;
+  let t0 = 0;
+  let t1 = 1;
+  const bounds: [number, number][] = [
+    [-dx, a.x - r.minX],
+    [dx, r.maxX - a.x],
+    [-dy, a.y - r.minY],
+    [dy, r.maxY - a.y],
+  ];
+  for (const [p, q] of bounds) {
+    if (p === 0) {
+      if (q < 0) return false;
+      continue;
+    }
+    const t = q / p;
+    if (p < 0) t0 = Math.max(t0, t);
+    else t1 = Math.min(t1, t);
+  }
+  if (t1 - t0 <= EPS) return false;
+  const mid = (t0 + t1) / 2;
+  return strictlyInside({ x: a.x + mid * dx, y: a.y + mid * dy }, r);
+}
+
+// Shortest path round a rectangle: a tiny visibility graph over its four corners.
+function shortestPathAround(from: Point, to: Point, r: Rect): Point[] {
+  if (strictlyInside(from, r) || !segmentCrossesInside(from, to, r)) return [from, to];
+  const nodes: Point[] = [
+    from,
+    to,
+    { x: r.minX, y: r.minY },
+    { x: r.maxX, y: r.minY },
+    { x: r.maxX, y: r.maxY },
+    { x: r.minX, y: r.maxY },
+  ];
+  const best = nodes.map(() => Infinity);
+  const previous = nodes.map(() => -1);
+  const done = nodes.map(() => false);
+  best[0] = 0;
+  for (let round = 0; round < nodes.length; round += 1) {
+    const current = nearestOpen(best, done);
+    if (current === -1) break;
+    done[current] = true;
+    nodes.forEach((node, next) => {
+      if (done[next] || segmentCrossesInside(nodes[current] as Point, node, r)) return;
+      const through = (best[current] as number) + distance(nodes[current] as Point, node);
+      if (through < (best[next] as number)) {
+        best[next] = through;
+        previous[next] = current;
+      }
+    });
+  }
+  return walkBack(nodes, previous, from, to);
+}
+
+function nearestOpen(best: readonly number[], done: readonly boolean[]): number {
+  let index = -1;
+  best.forEach((value, i) => {
+    if (!done[i] && value < Infinity && (index === -1 || value < (best[index] as number))) index = i;
+  });
+  return index;
+}
+
+function walkBack(nodes: readonly Point[], previous: readonly number[], from: Point, to: Point): Point[] {
+  if (previous[1] === -1) return [from, to];
+  const path: Point[] = [];
+  for (let i = 1; i !== -1; i = previous[i] as number) path.unshift(nodes[i] as Point);
+  return path;
+}

@@ -1,0 +1,41 @@
+// Server-only: reads the environment once. The .server suffix keeps it out of island bundles.
+function env(name: string, fallback?: string): string {
+  const value = process.env[name] ?? fallback;
+  if (value === undefined) {
+    throw new Error(`${name} is not set. Start the app with \`npm start\`, which sets it, or export it yourself.`);
+  }
+  return value;
+}
+
+export const config = {
+  get databaseUrl() {
+    return env('DATABASE_URL');
+  },
+  get authSecret() {
+    return env('AUTH_SECRET');
+  },
+  get appUrl() {
+    return env('APP_URL', `http://127.0.0.1:${process.env.PORT ?? 4321}`).replace(/\/$/, '');
+  },
+  get smtp() {
+    return {
+      host: env('SMTP_HOST', '127.0.0.1'),
+      port: Number(env('SMTP_PORT', '1025')),
+      user: process.env.SMTP_USER,
+      pass: process.env.SMTP_PASS,
+      secure: process.env.SMTP_SECURE === 'true',
+    };
+  },
+  get mailFrom() {
+    return env('MAIL_FROM', 'Groundwork <no-reply@groundwork.example.com>');
+  },
+  get officeEmail() {
+    return env('OFFICE_EMAIL', 'office@example.com');
+  },
+  get uploadDir() {
+    return env('UPLOAD_DIR', '.data/uploads');
+  },
+  get isTest() {
+    return process.env.GROUNDWORK_TEST === '1';
+  },
+};

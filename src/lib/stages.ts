@@ -1,0 +1,58 @@
+// Client-safe: the stages a case moves through, their words, and the moves allowed.
+export const stages = [
+  'invited',
+  'filling_in',
+  'sent_for_review',
+  'in_review',
+  'ready_for_survey',
+  'survey_booked',
+  'surveyed',
+  'withdrawn',
+] as const;
+export type StageId = (typeof stages)[number];
+
+export const stageLabels: Record<StageId, string> = {
+  invited: 'Invited',
+  filling_in: 'Filling in',
+  sent_for_review: 'Sent for review',
+  in_review: 'In review',
+  ready_for_survey: 'Ready for survey',
+  survey_booked: 'Survey booked',
+  surveyed: 'Surveyed',
+  withdrawn: 'Withdrawn',
+};
+
+/** What the customer reads about where their case is. */
+export const stageForCustomer: Record<StageId, string> = {
+  invited: 'Not started yet',
+  filling_in: 'In progress — carry on when you’re ready',
+  sent_for_review: 'Sent to your installer',
+  in_review: 'Your installer is checking it',
+  ready_for_survey: 'Ready — your installer will book a survey',
+  survey_booked: 'Survey booked',
+  surveyed: 'Survey done',
+  withdrawn: 'Closed',
+};
+
+const forward: Record<StageId, StageId[]> = {
+  invited: ['filling_in'],
+  filling_in: ['sent_for_review'],
+  sent_for_review: ['in_review'],
+  in_review: ['ready_for_survey'],
+  ready_for_survey: ['survey_booked'],
+  survey_booked: ['surveyed'],
+  surveyed: [],
+  withdrawn: [],
+};
+
+export const openStages = stages.filter((s) => s !== 'surveyed' && s !== 'withdrawn');
+
+/**
+ * The stages a case may move to from `from`: the next one, or Withdrawn from any open stage.
+ * @example allowedMoves('in_review') // ['ready_for_survey', 'withdrawn']
+ */
+export function allowedMoves(from: StageId): StageId[] {
+  const next = [...forward[from]];
+  if (openStages.includes(from)) next.push('withdrawn');
+  return next;
+}

@@ -1,0 +1,29 @@
+// UK phone numbers: pure and client-safe, using libphonenumber-js with its default (min)
+// metadata so the browser bundle stays small.
+import { parsePhoneNumberFromString } from 'libphonenumber-js';
+
+export type PhoneResult = { ok: true; e164: string; display: string } | { ok: false; message: string };
+
+// Longer input is not a phone number, and capping it bounds the parser's work.
+const MAX_INPUT = 40;
+
+/**
+ * Checks a UK phone number (country code 44, which the Crown Dependencies share) and returns
+ * it in E.164 for storage and in the national style for display.
+ *
+ * @example checkUkPhone('0113 496 0000') // { ok: true, e164: '+441134960000', display: '0113 496 0000' }
+ */
+export function checkUkPhone(input: string): PhoneResult {
+  const trimmed = input.trim();
+  if (trimmed.length === 0) return { ok: false, message: 'Please enter a phone number.' };
+  if (trimmed.length > MAX_INPUT) return { ok: false, message: 'This is too long for a phone number. Please check it.' };
+  const parsed = parsePhoneNumberFromString(trimmed, 'GB');
+  if (!parsed || !parsed.isValid()) {
+    return { ok: false, message: 'This does not look like a UK phone number. Please check it, including the area code.' };
+  }
+  if (parsed.countryCallingCode !== '44') {
+    return { ok: false, message: 'Please give a UK phone number, starting 0 or +44.' };
+  }
+  if (parsed.ext) return { ok: false, message: 'Please leave out the extension and give a number that reaches you directly.' };
+  return { ok: true, e164: parsed.number, display: parsed.formatNational() };
+}

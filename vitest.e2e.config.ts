@@ -1,0 +1,13 @@
+import { defineConfig } from 'vitest/config';
+
+// Browser tests drive Debian's Chromium through playwright-core, one file at a time.
+export default defineConfig({
+  test: {
+    include: ['tests/e2e/**/*.test.ts'],
+    testTimeout: 120_000,
+    hookTimeout: 120_000,
+    fileParallelism: false,
+    maxWorkers: 1,
+    minWorkers: 1,
+  },
+});
