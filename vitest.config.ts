@@ -1,7 +1,7 @@
 import { defineConfig } from 'vitest/config';
 import { fileURLToPath } from 'node:url';
 
-// Unit and integration tests. Integration tests read BASE_URL, DATABASE_URL and
+// Unit and integration tests. Integration tests read APP_URL, DATABASE_URL and
 // MAIL_API_URL, which scripts/test.mjs sets after starting a throwaway stack.
 export default defineConfig({
   resolve: { alias: { '~': fileURLToPath(new URL('./src', import.meta.url)) } },

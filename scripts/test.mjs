@@ -7,7 +7,7 @@ import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import {
-  build, ensureNodeModules, freePort, log, migrate, root, startChild, startDatabase, stopChildren, waitForHttp,
+  build, ensureNodeModules, freePort, log, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp,
 } from './lib/stack.mjs';
 
 ensureNodeModules();
@@ -52,6 +52,7 @@ try {
     PORT: String(appPort),
     GROUNDWORK_TEST: '1',
   };
+  runTsx('seeds/run.ts', env);
   startChild('fake mail', 'node', ['fake-services/mail-server.mjs'], {
     env: { FAKE_SMTP_PORT: String(smtpPort), FAKE_MAIL_HTTP_PORT: String(mailHttpPort) },
     quiet: true,
@@ -59,7 +60,7 @@ try {
   build();
   startChild('app', 'node', ['dist/server/entry.mjs'], { env, quiet: true });
   await waitForHttp(`${appUrl}/api/health`);
-  const testEnv = { ...process.env, ...env, BASE_URL: appUrl, MAIL_API_URL: `http://127.0.0.1:${mailHttpPort}`, CHROMIUM_PATH: chromium };
+  const testEnv = { ...process.env, ...env, MAIL_API_URL: `http://127.0.0.1:${mailHttpPort}`, CHROMIUM_PATH: chromium };
   const vitest = join(root, 'node_modules', '.bin', 'vitest');
   const unitFilters = filters.filter((f) => !f.includes('e2e'));
   const e2eFilters = filters.filter((f) => f.includes('e2e'));

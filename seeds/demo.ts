@@ -21,8 +21,8 @@ export async function seedDemo(db: Db, password: string) {
   await createUser(db, { role: 'surveyor', email: 'surveyor2@example.com', name: 'Ines Halloway', password });
 
   const customers = [
-    { email: 'customer@example.com', name: 'Maren Oakes', phone: '+447700900123' },
-    { email: 'customer2@example.com', name: 'Tobias Wren', phone: '+447700900456' },
+    { email: 'customer@example.com', name: 'Maren Oakes', phone: '+441134960123' },
+    { email: 'customer2@example.com', name: 'Tobias Wren', phone: '+441134960456' },
     { email: 'delphine.achterberg@example.org', name: 'Delphine Achterberg' },
     { email: 'owen.pellow@example.org', name: 'Owen Pellow' },
     { email: 'sunita.marlowe@example.org', name: 'Sunita Marlowe' },
@@ -42,7 +42,7 @@ export async function seedDemo(db: Db, password: string) {
     invitedDaysAgo: 4,
     checklist: {
       about: {
-        fullName: 'Maren Oakes', email: 'customer@example.com', phone: '+447700900123', addressLine1: '14 Tanners Row',
+        fullName: 'Maren Oakes', email: 'customer@example.com', phone: '+441134960123', addressLine1: '14 Tanners Row',
         town: 'Quillbury', postcode: 'AB12 3CD', tenure: 'owner', propertyType: 'house',
       },
       vehicle: { make: 'Example Motors', model: 'Volta 5', condition: 'new', deliveryDate: daysFromNow(40), connector: 'type2' },
@@ -104,6 +104,6 @@ export async function seedDemo(db: Db, password: string) {
   });
   await db
     .insert(settings)
-    .values({ key: 'firm', value: { name: 'Fernbrook Home Energy', email: 'office@example.com', phone: '01632 960000' }, updatedBy: admin.id })
+    .values({ key: 'firm', value: { name: 'Fernbrook Home Energy', email: 'office@example.com', phone: '0113 496 0000' }, updatedBy: admin.id })
     .onConflictDoNothing();
 }

@@ -65,7 +65,7 @@ export function checkTiming({ answers, settings, today }: CheckInput): CheckResu
   const spareDays = daysUntilDelivery - lead.totalLeadDays;
   const figures = { ...base, daysUntilDelivery, spareDays };
   if (daysUntilDelivery <= 0) {
-    return result('amber', "Your car is already with you (or arrives today), so we'll get the charger fitted as soon as we can. Until then, please charge only as the car maker advises.", `Car delivered or due today (${deliveryDate}); earliest install ${earliestInstallDate}. Book as soon as possible.`, figures, ['Book the survey as soon as possible.']);
+    return result('amber', "Your car is already with you (or arrives today), so we'll get the charger fitted as soon as we can. In the meantime, please follow the car maker's advice on charging.", `Car delivered or due today (${deliveryDate}); earliest install ${earliestInstallDate}. Book as soon as possible.`, figures, ['Book the survey as soon as possible.']);
   }
   const light = timingLight(spareDays, settings.timingSlackDays);
   return result(light, customerText(light, spareDays, route.route === 'apply-before'), staffText(figures, settings), figures, actions(light));

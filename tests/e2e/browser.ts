@@ -1,0 +1,65 @@
+// Launches Debian's Chromium through playwright-core (never a downloaded browser).
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+export const baseUrl = process.env.APP_URL ?? 'http://127.0.0.1:4321';
+export const PHONE = { width: 390, height: 844 };
+export const DESKTOP = { width: 1280, height: 900 };
+
+let browser: Browser | undefined;
+let profile: string | undefined;
+
+export async function launch(): Promise<Browser> {
+  profile = mkdtempSync(join(tmpdir(), 'groundwork-chromium-'));
+  // A persistent context is the only way to pass --user-data-dir; we wrap its browser.
+  browser = await chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    headless: true,
+    args: [
+      '--headless',
+      '--no-sandbox',
+      '--disable-gpu',
+      '--disable-quic',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+      `--disk-cache-dir=${join(profile, 'cache')}`,
+    ],
+  });
+  return browser;
+}
+
+export async function close() {
+  await browser?.close();
+  if (profile) rmSync(profile, { recursive: true, force: true });
+}
+
+export async function newPage(viewport = PHONE): Promise<{ context: BrowserContext; page: Page }> {
+  if (!browser) await launch();
+  const context = await browser!.newContext({ viewport, baseURL: baseUrl, locale: 'en-GB' });
+  const page = await context.newPage();
+  // Fail on any page error or console error, like the unit tests do.
+  const problems: string[] = [];
+  page.on('pageerror', (e) => problems.push(`pageerror: ${e.message}`));
+  page.on('console', (m) => {
+    if (m.type() === 'error' && !/Failed to load resource: the server responded with a status of (401|404|409|422)/.test(m.text())) {
+      problems.push(`console.error: ${m.text()}`);
+    }
+  });
+  (page as Page & { problems: string[] }).problems = problems;
+  return { context, page };
+}
+
+export function problemsOf(page: Page): string[] {
+  return (page as Page & { problems?: string[] }).problems ?? [];
+}
+
+/** Saves a screenshot under screenshots/ for people to look at (the folder is git-ignored). */
+export async function snap(page: Page, name: string) {
+  const dir = join(process.cwd(), 'screenshots');
+  mkdirSync(dir, { recursive: true });
+  await page.screenshot({ path: join(dir, `${name}.png`), fullPage: true });
+}
