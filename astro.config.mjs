@@ -12,6 +12,8 @@ const hosts = [...new Set(['127.0.0.1', 'localhost', ...(appHost ? [appHost] : [
 
 export default defineConfig({
   output: 'server',
+  // `npm test` builds into a folder of its own so it never disturbs a running `npm start`.
+  outDir: process.env.GROUNDWORK_OUT_DIR ?? './dist',
   adapter: node({ mode: 'standalone' }),
   integrations: [react(), tailwind({ applyBaseStyles: false }), auth()],
   security: {
@@ -19,7 +21,6 @@ export default defineConfig({
     allowedDomains: hosts.map((hostname) => ({ hostname })),
   },
   server: { host: '127.0.0.1', port: Number(process.env.PORT ?? 4321) },
-  telemetry: false,
   devToolbar: { enabled: false },
   vite: {
     ssr: { external: ['sharp', '@node-rs/argon2'] },

@@ -56,8 +56,8 @@ try {
       env: { FAKE_SMTP_PORT: String(smtpPort), FAKE_MAIL_HTTP_PORT: String(mailHttpPort) },
     });
   }
-  build();
-  startChild('app', 'node', ['dist/server/entry.mjs'], { env, quiet: true });
+  const entry = build('dist', env);
+  startChild('app', 'node', [entry], { env, quiet: true });
   await waitForHttp(`${appUrl}/api/health`);
   console.log(`
   Groundwork is running at ${appUrl}

@@ -25,6 +25,7 @@ function ensureChromium() {
 const scratch = mkdtempSync(join(tmpdir(), 'groundwork-test-'));
 const filters = process.argv.slice(2);
 let db;
+let outDir;
 let code = 1;
 try {
   const chromium = ensureChromium();
@@ -57,8 +58,10 @@ try {
     env: { FAKE_SMTP_PORT: String(smtpPort), FAKE_MAIL_HTTP_PORT: String(mailHttpPort) },
     quiet: true,
   });
-  build();
-  startChild('app', 'node', ['dist/server/entry.mjs'], { env, quiet: true });
+  outDir = `.data/test-build-${process.pid}`;
+  const entry = build(outDir, env);
+  env.APP_ENTRY = entry;
+  startChild('app', 'node', [entry], { env, quiet: true });
   await waitForHttp(`${appUrl}/api/health`);
   const testEnv = { ...process.env, ...env, MAIL_API_URL: `http://127.0.0.1:${mailHttpPort}`, CHROMIUM_PATH: chromium };
   const vitest = join(root, 'node_modules', '.bin', 'vitest');
@@ -84,6 +87,7 @@ try {
   await stopChildren();
   db?.stop();
   rmSync(scratch, { recursive: true, force: true });
+  if (outDir) rmSync(join(root, outDir), { recursive: true, force: true });
   if (db?.dataDir && !db.dataDir.startsWith(scratch)) rmSync(db.dataDir, { recursive: true, force: true });
 }
 log(code === 0 ? 'All tests passed.' : 'Some tests failed.');

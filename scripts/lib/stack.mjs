@@ -113,9 +113,15 @@ export async function waitForHttp(url, timeoutMs = 60_000) {
   }
 }
 
-export function build() {
+/** Builds the app into outDir (relative to the project, so the server finds node_modules). */
+export function build(outDir = 'dist', env = {}) {
   log('Building the app (astro build)…');
-  execFileSync(join(root, 'node_modules', '.bin', 'astro'), ['build'], { cwd: root, stdio: ['ignore', 'ignore', 'inherit'] });
+  execFileSync(join(root, 'node_modules', '.bin', 'astro'), ['build'], {
+    cwd: root,
+    stdio: ['ignore', 'ignore', 'inherit'],
+    env: { ...process.env, ...env, GROUNDWORK_OUT_DIR: outDir },
+  });
+  return join(root, outDir, 'server', 'entry.mjs');
 }
 
 export function runTsx(script, env) {

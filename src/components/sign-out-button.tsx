@@ -11,7 +11,7 @@ export default function SignOutButton() {
       disabled={busy}
       onClick={() => {
         setBusy(true);
-        void signOut({ callbackUrl: '/' });
+        void signOut({ callbackUrl: '/' } as Parameters<typeof signOut>[0]);
       }}
     >
       {busy ? 'Signing out…' : 'Sign out'}

@@ -45,7 +45,7 @@ const forward: Record<StageId, StageId[]> = {
   withdrawn: [],
 };
 
-export const openStages = stages.filter((s) => s !== 'surveyed' && s !== 'withdrawn');
+export const openStages: StageId[] = stages.filter((s) => s !== 'surveyed' && s !== 'withdrawn');
 
 /**
  * The stages a case may move to from `from`: the next one, or Withdrawn from any open stage.

@@ -41,3 +41,17 @@ export function signInLinkEmail(url: string): { subject: string; text: string; h
     ]),
   };
 }
+
+export function caseSubmittedEmail(input: { reference: string; customer: string; address: string; gaps: { title: string; missing: string[] }[]; url: string }) {
+  const gapLines = input.gaps.map((g) => `${g.title}: ${g.missing.join(', ')}`);
+  return {
+    subject: `Case ${input.reference} sent for review${input.gaps.length ? ` (${input.gaps.length} sections with gaps)` : ''}`,
+    ...renderEmail(`${input.customer} has sent their case for review`, [
+      { kind: 'p', text: `Case ${input.reference}, ${input.address || 'address not given yet'}.` },
+      ...(gapLines.length
+        ? [{ kind: 'p' as const, text: 'They sent it with these gaps:' }, { kind: 'list' as const, items: gapLines }]
+        : [{ kind: 'p' as const, text: 'Every section of the checklist is complete.' }]),
+      { kind: 'button', text: 'Open the case', href: input.url },
+    ]),
+  };
+}

@@ -1,0 +1,112 @@
+// Server-only: saving the customer's checklist and sending it for review.
+import { and, eq, sql } from 'drizzle-orm';
+import { cases, type CaseRow } from '../../db/schema';
+import { mergeChecklist, sectionProgress, type Checklist, type ChecklistPatch } from '../schemas/checklist';
+import { audit } from './audit.server';
+import { editableStages, toCaseView } from './case-view.server';
+import { db } from './db.server';
+import { HttpError } from './http';
+import type { SessionUser } from './users.server';
+
+/** Only the fields that really change, as { path: [before, after] }, for the audit trail. */
+function diff(before: Checklist, after: Checklist): Record<string, [unknown, unknown]> {
+  const out: Record<string, [unknown, unknown]> = {};
+  const flat = (o: unknown, prefix = ''): Record<string, unknown> =>
+    o && typeof o === 'object' && !Array.isArray(o) && !(prefix.endsWith('.plan'))
+      ? Object.assign({}, ...Object.entries(o).map(([k, v]) => flat(v, prefix ? `${prefix}.${k}` : k)))
+      : { [prefix]: o };
+  const a = flat(before);
+  const b = flat(after);
+  for (const key of new Set([...Object.keys(a), ...Object.keys(b)])) {
+    if (JSON.stringify(a[key]) !== JSON.stringify(b[key])) out[key] = [a[key] ?? null, b[key] ?? null];
+  }
+  return out;
+}
+
+/**
+ * Merges a validated patch into the case's checklist, if the caller's version is current.
+ * @throws HttpError 409 `conflict` (with the current case) when another save came first.
+ */
+export async function saveChecklist(user: SessionUser, row: CaseRow, patch: ChecklistPatch, ifVersion: number | null) {
+  if (!editableStages.includes(row.stage)) {
+    throw new HttpError(409, 'conflict', 'This case can no longer be changed. Please contact your installer.', undefined, { reason: 'locked' });
+  }
+  return db().transaction(async (tx) => {
+    const [current] = await tx.select().from(cases).where(eq(cases.id, row.id)).for('update');
+    if (!current) throw new HttpError(404, 'not_found', 'That case was not found.');
+    if (ifVersion !== null && current.version !== ifVersion) {
+      throw new HttpError(409, 'conflict', 'These answers were changed on another device or tab. The newer answers are loaded.', undefined, {
+        current: toCaseView(current),
+      });
+    }
+    const before = current.checklist as Checklist;
+    const after = mergeChecklist(before, patch);
+    const changes = diff(before, after);
+    if (Object.keys(changes).length === 0) return toCaseView(current);
+    const about = after.about ?? {};
+    const isCustomer = user.role === 'customer';
+    const [saved] = await tx
+      .update(cases)
+      .set({
+        checklist: after,
+        version: sql`${cases.version} + 1`,
+        updatedAt: new Date(),
+        // The office's queue reads the address from the case's own columns.
+        ...('about' in patch
+          ? { addressLine1: about.addressLine1 ?? null, addressLine2: about.addressLine2 ?? null, town: about.town ?? null, postcode: about.postcode ?? null }
+          : {}),
+        ...(isCustomer ? { lastCustomerActivityAt: new Date() } : {}),
+        ...(current.stage === 'invited' && isCustomer ? { stage: 'filling_in' as const } : {}),
+      })
+      .where(and(eq(cases.id, row.id)))
+      .returning();
+    await audit(
+      {
+        caseId: row.id,
+        actorId: user.id,
+        action: 'checklist.updated',
+        entity: 'case',
+        entityId: row.id,
+        before: Object.fromEntries(Object.entries(changes).map(([k, [b]]) => [k, b])),
+        after: Object.fromEntries(Object.entries(changes).map(([k, [, a]]) => [k, a])),
+      },
+      tx,
+    );
+    if (current.stage !== saved!.stage) {
+      await audit({ caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: current.stage }, after: { stage: saved!.stage } }, tx);
+    }
+    return toCaseView(saved!);
+  });
+}
+
+export type Gap = { section: string; title: string; missing: string[] };
+
+export function gapsOf(checklist: Checklist): Gap[] {
+  return sectionProgress(checklist)
+    .filter((s) => !s.complete)
+    .map((s) => ({ section: s.id, title: s.title, missing: s.missing }));
+}
+
+/** Moves the case to "Sent for review"; with gaps only once the customer has seen them. */
+export async function submitCase(user: SessionUser, row: CaseRow, acknowledgeGaps: boolean) {
+  if (row.stage !== 'invited' && row.stage !== 'filling_in') {
+    throw new HttpError(409, 'conflict', 'This case has already been sent to your installer.', undefined, { reason: 'already-sent' });
+  }
+  const gaps = gapsOf(row.checklist as Checklist);
+  if (gaps.length > 0 && !acknowledgeGaps) {
+    throw new HttpError(409, 'conflict', 'Some answers are still missing. Send anyway?', undefined, { gaps });
+  }
+  const [saved] = await db().transaction(async (tx) => {
+    const result = await tx
+      .update(cases)
+      .set({ stage: 'sent_for_review', submittedAt: new Date(), updatedAt: new Date(), lastCustomerActivityAt: new Date(), version: sql`${cases.version} + 1` })
+      .where(eq(cases.id, row.id))
+      .returning();
+    await audit(
+      { caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: row.stage }, after: { stage: 'sent_for_review', gaps: gaps.length } },
+      tx,
+    );
+    return result;
+  });
+  return { view: toCaseView(saved!), gaps };
+}

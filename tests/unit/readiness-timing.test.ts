@@ -1,0 +1,125 @@
+import { describe, expect, it } from 'vitest';
+import { checkTiming, leadTime, timingLight } from '../../src/lib/readiness/checks/timing';
+import { addDays, isoDayNumber } from '../../src/lib/readiness/dates';
+import { defaultReadinessSettings, resolveReadinessSettings } from '../../src/lib/readiness/settings';
+import type { LoadAnswers } from '../../src/lib/readiness';
+
+// Lead times are settings (common practice, no published source): survey 7 + install 14 = 21
+// calendar days; + 28 when the network operator must be applied to first (ENA "Connecting
+// electric vehicles and heat pumps"). Calendar days: weekends are not skipped. Slack 7 days.
+// today = 2025-03-03 (a Monday).
+const TODAY = '2025-03-03';
+// 100 A, not looped, nothing big declared: 42 A → notify-after, no upgrade lead time.
+const NOTIFY = { mainFuseAmps: 100 as const, looped: 'no' as const, loads: {} as LoadAnswers };
+// 10.5 kW shower: 87.65 A > 60 A → apply-before, + 28 days.
+const APPLY = { ...NOTIFY, loads: { showerKw: 10.5 } };
+
+function timing(deliveryDate: string | null, supply = NOTIFY, today = TODAY) {
+  return checkTiming({ answers: { vehicle: { deliveryDate }, supply }, uploads: [], settings: defaultReadinessSettings, today });
+}
+
+describe('calendar days', () => {
+  it.each([
+    // March has 31 days: 3 + 21 = 24 → 2025-03-24.
+    { from: '2025-03-03', days: 21, to: '2025-03-24' },
+    // 3 + 49 = 52 − 31 → 21 April.
+    { from: '2025-03-03', days: 49, to: '2025-04-21' },
+    // Leap year: 20 Feb 2024 + 21 = 41 − 29 → 12 March.
+    { from: '2024-02-20', days: 21, to: '2024-03-12' },
+    // Across the year end: 20 Dec + 21 = 41 − 31 → 10 January.
+    { from: '2025-12-20', days: 21, to: '2026-01-10' },
+  ])('$from + $days = $to', ({ from, days, to }) => {
+    expect(addDays(from, days)).toBe(to);
+  });
+
+  it('refuses dates that do not exist', () => {
+    expect(isoDayNumber('2025-02-29')).toBeNull();
+    expect(isoDayNumber('2024-02-29')).not.toBeNull();
+    expect(isoDayNumber('03/03/2025')).toBeNull();
+  });
+
+  it('does not skip weekends: a Saturday start lands on a Saturday 21 days on', () => {
+    // 2025-03-08 is a Saturday; + 21 calendar days = 2025-03-29, also a Saturday.
+    expect(timing('2025-06-01', NOTIFY, '2025-03-08').figures.earliestInstallDate).toBe('2025-03-29');
+  });
+});
+
+describe('timing edges, notify-after (21 days lead)', () => {
+  it.each([
+    // Delivery exactly at the lead time: 21 − 21 = 0 spare → install on the day → amber (tight).
+    { delivery: '2025-03-24', spare: 0, light: 'amber' },
+    // One day short: 20 − 21 = −1 → red.
+    { delivery: '2025-03-23', spare: -1, light: 'red' },
+    // Tomorrow: 1 − 21 = −20 → red.
+    { delivery: '2025-03-04', spare: -20, light: 'red' },
+    // 27 days: 6 spare < 7 slack → amber.
+    { delivery: '2025-03-30', spare: 6, light: 'amber' },
+    // 28 days: 7 spare, not less than the slack → green.
+    { delivery: '2025-03-31', spare: 7, light: 'green' },
+  ])('delivery $delivery → spare $spare → $light', ({ delivery, spare, light }) => {
+    const result = timing(delivery);
+    expect(result.figures.spareDays).toBe(spare);
+    expect(result.figures.totalLeadDays).toBe(21);
+    expect(result.light).toBe(light);
+  });
+
+  it.each([
+    // Delivery today: the car is here (or arrives today): amber "as soon as possible".
+    { delivery: '2025-03-03' },
+    // Delivered last week: also amber, nothing left to reschedule.
+    { delivery: '2025-02-24' },
+  ])('delivery $delivery (already here) → amber, as soon as possible', ({ delivery }) => {
+    const result = timing(delivery);
+    expect(result.light).toBe('amber');
+    expect(result.actions[0]).toMatch(/as soon as possible/);
+  });
+
+  it.each([{ delivery: null }, { delivery: '2025-02-30' }])('delivery $delivery → amber, asks for the date', ({ delivery }) => {
+    const result = timing(delivery);
+    expect(result.light).toBe('amber');
+    expect(result.actions).toEqual(['Enter the expected delivery date.']);
+  });
+});
+
+describe('timing with a network-operator application (49 days lead)', () => {
+  it.each([
+    // 7 + 14 + 28 = 49: delivery 2025-04-21 → 0 spare → amber.
+    { delivery: '2025-04-21', spare: 0, light: 'amber' },
+    // One day short → red.
+    { delivery: '2025-04-20', spare: -1, light: 'red' },
+    // 2025-04-28: 56 − 49 = 7 spare → green.
+    { delivery: '2025-04-28', spare: 7, light: 'green' },
+    // A date that is green without the application (38 − 21 = 17) is red with it (38 − 49 = −11).
+    { delivery: '2025-04-10', spare: -11, light: 'red' },
+  ])('delivery $delivery → spare $spare → $light', ({ delivery, spare, light }) => {
+    const result = timing(delivery, APPLY);
+    expect(result.figures.supplyUpgradeLeadDays).toBe(28);
+    expect(result.figures.networkRoute).toBe('apply-before');
+    expect(result.figures.spareDays).toBe(spare);
+    expect(result.light).toBe(light);
+  });
+});
+
+describe('lead time and light rules', () => {
+  it('adds the lead times from settings', () => {
+    expect(leadTime(defaultReadinessSettings, false).totalLeadDays).toBe(21);
+    expect(leadTime(defaultReadinessSettings, true).totalLeadDays).toBe(49);
+    // 3 + 5 + 10 = 18.
+    expect(leadTime(resolveReadinessSettings({ surveyLeadDays: 3, installLeadDays: 5, supplyUpgradeLeadDays: 10 }), true).totalLeadDays).toBe(18);
+  });
+
+  it.each([
+    { spare: -1, slack: 7, light: 'red' },
+    { spare: 0, slack: 7, light: 'amber' },
+    { spare: 6, slack: 7, light: 'amber' },
+    { spare: 7, slack: 7, light: 'green' },
+    // With no slack, a same-day install is green.
+    { spare: 0, slack: 0, light: 'green' },
+  ] as const)('spare $spare, slack $slack → $light', ({ spare, slack, light }) => {
+    expect(timingLight(spare, slack)).toBe(light);
+  });
+
+  it('refuses a malformed today: the caller must pass the date', () => {
+    expect(() => timing('2025-04-01', NOTIFY, 'today')).toThrow(RangeError);
+  });
+});
