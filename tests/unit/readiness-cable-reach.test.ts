@@ -207,10 +207,17 @@ describe('reach verdict for every port and way (bay A, C at (2.6, 0), slack 1 m)
     expect(reachVerdict(marked, 5, 'nose-in').map((v) => v.bayIndex)).toEqual([1]);
   });
 
-  it('finds what stops a plan being measured', () => {
+  it('finds what stops a plan being measured, whatever JSON was saved', () => {
     expect(planProblems(plan())).toEqual([]);
     expect(planProblems(plan({ bays: [] }))).toEqual(['Add the parking bay to the plan.']);
-    expect(planProblems(plan({ bays: [{ ...bayA, width: 0 }] }))).toHaveLength(1);
+    expect(planProblems(plan({ bays: [{ ...bayA, width: 0 }] }))).toEqual([
+      'Give each parking bay a position, width and length (one or two bays).',
+    ]);
+    // Three bays is more than the plan allows (one or two).
+    expect(planProblems(plan({ bays: [bayA, bayB, bayB] }))).toHaveLength(1);
+    expect(planProblems({ ...plan(), car: 'big' })).toEqual(["Choose your car's size."]);
+    expect(planProblems({ ...plan(), chargePort: 'roof' })).toEqual(['Pick where the charge port is on your car.']);
+    expect(planProblems({ scribble: true }).length).toBeGreaterThan(1);
   });
 });
 
@@ -271,6 +278,8 @@ describe('cable-reach check', () => {
     { name: 'no plan', charger: { preference: 'tethered' as const }, port: 'front-left' as const, action: /Draw your driveway plan/ },
     { name: 'no port', charger: { preference: 'tethered' as const, plan: plan() }, port: null, action: /charge port/ },
     { name: 'no bay', charger: { preference: 'tethered' as const, plan: plan({ bays: [] }) }, port: 'front-left' as const, action: /parking bay/ },
+    // Saved JSON that is not a plan at all: amber, never a crash.
+    { name: 'junk plan', charger: { preference: 'tethered' as const, plan: { bays: 'none' } as unknown as DrivewayPlan }, port: 'front-left' as const, action: /./ },
   ])('$name → amber with an action', ({ charger, port, action }) => {
     const result = reach(charger, 'nose-in', port);
     expect(result.light).toBe('amber');

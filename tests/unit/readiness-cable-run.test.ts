@@ -176,4 +176,11 @@ describe('cable-run light', () => {
     expect(result.figures.sizes).toEqual([]);
     expect(result.actions[0]).toMatch(/length/);
   });
+
+  it('tells the customer once why a route may cost more', () => {
+    // 22 m buried: both a costly route and longer than 15 m → one sentence naming both.
+    const text = run(22, 'buried').customerText;
+    expect(text).toContain('buried under the drive and it is longer than 15 m');
+    expect(text.match(/quote may be higher/g)).toHaveLength(1);
+  });
 });

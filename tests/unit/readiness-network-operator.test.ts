@@ -95,4 +95,9 @@ describe('network-operator light and figures', () => {
     expect(check({ fuse: 100, looped: 'no', loads: {} }, '1312345678907').figures.region).toBe('Merseyside, Cheshire and North Wales');
     expect(check({ fuse: 100, looped: 'no', loads: {} }, '1312345678901').figures.region).toBeNull();
   });
+
+  it('says "until we know more" when only unknowns point to applying first', () => {
+    expect(check({ fuse: null, looped: 'no', loads: {} }).customerText).toMatch(/^Until we know a little more/);
+    expect(check({ fuse: 100, looped: 'yes', loads: {} }).customerText).toMatch(/^Before the charger is connected/);
+  });
 });

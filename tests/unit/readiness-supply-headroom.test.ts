@@ -184,4 +184,15 @@ describe('supply-headroom light', () => {
     const green = headroom(100, { showerKw: 10.5 });
     expect(green.actions).toEqual([]);
   });
+
+  it('gives the real reason for an amber in the customer text', () => {
+    // 100 A, loads unanswered: 58 A spare is plenty; amber only because the loads are unknown.
+    const unknownLoads = headroom(100, null);
+    expect(unknownLoads.customerText).not.toMatch(/only about/);
+    expect(unknownLoads.customerText).toMatch(/haven't heard about your big electrical appliances/);
+    // 100 A, 8 kW heat pump + cooker: 3.17 A spare < 10 A → "only about 3.2 A to spare".
+    expect(headroom(100, { heatPumpKw: 8, cooker: true }).customerText).toMatch(/only about 3\.2 A to spare/);
+    // 60 A with 18 A spare: amber for the small fuse.
+    expect(headroom(60, {}).customerText).toMatch(/on the small side/);
+  });
 });

@@ -6,56 +6,72 @@
 // the wall looking out over the drive. (A screen that draws y downward should draw (x, -y)
 // flipped top to bottom, i.e. the house along the bottom edge, or the sides will swap.)
 // A car's "left" and "right" are as seen from the driver's seat looking forward.
+import { z } from 'zod';
 import type { ChargePort, ParkingHabit, ParkingWay } from './types';
 import { defaultReadinessSettings } from './settings';
 import { roundTo } from './units';
 
-export interface Point {
-  x: number;
-  y: number;
-}
+const onPlan = z.number().finite().min(-500).max(500);
 
-/** The house wall: the segment of y = 0 from x0 to x1. */
-export interface PlanWall {
-  x0: number;
-  x1: number;
-}
+export const chargePortValues = [
+  'front-left',
+  'front-right',
+  'front-centre',
+  'rear-left',
+  'rear-right',
+  'side-left',
+  'side-right',
+] as const satisfies readonly ChargePort[];
+
+export const carSizeClassValues = ['small', 'medium', 'large', 'custom'] as const;
+
+const pointSchema = z.object({ x: onPlan, y: onPlan });
 
 /**
  * A parking bay. Angle 0: its length runs away from the wall, covering x..x+width and
  * y..y+length, and a car parked nose-in faces the wall. Angle 90: its length runs along the
  * wall, covering x..x+length and y..y+width, and a car parked nose-in entered from `entry`
- * (default 'left', the smaller-x end) so it faces the other end.
+ * (default 'left', the smaller-x end) so it faces the other end. `forEv` marks the bay the
+ * electric car uses; when no bay is marked, every bay must reach.
  */
-export interface PlanBay {
-  x: number;
-  y: number;
-  width: number;
-  length: number;
-  angle: 0 | 90;
-  entry?: 'left' | 'right' | null;
-  /** Marks the bay the electric car uses; when no bay is marked, every bay must reach. */
-  forEv?: boolean | null;
-}
+const baySchema = z.object({
+  x: onPlan,
+  y: onPlan,
+  width: z.number().finite().positive().max(50),
+  length: z.number().finite().positive().max(50),
+  angle: z.union([z.literal(0), z.literal(90)]),
+  entry: z.enum(['left', 'right']).nullish(),
+  forEv: z.boolean().nullish(),
+});
 
-export type CarSizeClass = 'small' | 'medium' | 'large' | 'custom';
+/** lengthM / widthM (body, mirrors folded) override the size class's defaults when given. */
+const carSchema = z.object({
+  sizeClass: z.enum(carSizeClassValues),
+  lengthM: z.number().finite().positive().max(10).nullish(),
+  widthM: z.number().finite().positive().max(4).nullish(),
+});
 
-export interface PlanCar {
-  sizeClass: CarSizeClass;
-  /** Overrides the size class's length when given. */
-  lengthM?: number | null;
-  /** Overrides the size class's width (body, mirrors folded) when given. */
-  widthM?: number | null;
-}
+/**
+ * The driveway plan as saved in `charger.plan`: the wall (y = 0 from x0 to x1), the charge
+ * point, one or two bays, the car, and the charge port as picked on the plan (which falls back
+ * to the vehicle step's answer).
+ *
+ * @example drivewayPlanSchema.safeParse({ wall: { x0: 0, x1: 8 }, chargePoint: { x: 1, y: 0 }, bays: [], car: { sizeClass: 'small' } }).success // true
+ */
+export const drivewayPlanSchema = z.object({
+  wall: z.object({ x0: onPlan, x1: onPlan }),
+  chargePoint: pointSchema,
+  bays: z.array(baySchema).max(2),
+  car: carSchema,
+  chargePort: z.enum(chargePortValues).nullish(),
+});
 
-export interface DrivewayPlan {
-  wall: PlanWall;
-  chargePoint: Point;
-  bays: PlanBay[];
-  car: PlanCar;
-  /** The charge port as picked on the plan; falls back to the vehicle step's answer. */
-  chargePort?: ChargePort | null;
-}
+export type Point = z.infer<typeof pointSchema>;
+export type PlanBay = z.infer<typeof baySchema>;
+export type CarSizeClass = (typeof carSizeClassValues)[number];
+export type PlanCar = z.infer<typeof carSchema>;
+export type PlanWall = DrivewayPlan['wall'];
+export type DrivewayPlan = z.infer<typeof drivewayPlanSchema>;
 
 export interface CarSize {
   lengthM: number;
@@ -275,32 +291,44 @@ export function reachVerdict(
   );
 }
 
+const problemBySection: Record<string, string> = {
+  wall: 'Draw the house wall.',
+  chargePoint: 'Mark where you would like the charge point.',
+  bays: 'Give each parking bay a position, width and length (one or two bays).',
+  car: "Choose your car's size.",
+  chargePort: 'Pick where the charge port is on your car.',
+};
+
 /**
- * Problems that stop the plan being measured; empty when it can be.
+ * Reads a saved plan (free-form JSON) into a measurable plan, or says in plain words what is
+ * missing.
+ *
+ * @example readPlan({ ...plan, bays: [] }) // { plan: null, problems: ['Add the parking bay to the plan.'] }
+ */
+export function readPlan(value: unknown): { plan: DrivewayPlan | null; problems: string[] } {
+  const parsed = drivewayPlanSchema.safeParse(value);
+  if (!parsed.success) {
+    const sections = parsed.error.issues.map((issue) => String(issue.path[0] ?? ''));
+    const problems = [...new Set(sections.map((section) => problemBySection[section] ?? 'Finish your driveway plan.'))];
+    return { plan: null, problems };
+  }
+  if (parsed.data.bays.length === 0) return { plan: null, problems: ['Add the parking bay to the plan.'] };
+  return { plan: parsed.data, problems: [] };
+}
+
+/**
+ * What stops a plan being measured; empty when it can be.
  *
  * @example planProblems({ ...plan, bays: [] }) // ['Add the parking bay to the plan.']
  */
-export function planProblems(plan: DrivewayPlan): string[] {
-  const problems: string[] = [];
-  if (!isPoint(plan.chargePoint)) problems.push('Mark where you would like the charge point.');
-  if (!Array.isArray(plan.bays) || plan.bays.length === 0) problems.push('Add the parking bay to the plan.');
-  else if (!plan.bays.every(isBay)) problems.push('Give each parking bay a position, width and length.');
-  if (!plan.car || !(plan.car.sizeClass in carSizeDefaults)) problems.push("Choose your car's size.");
-  return problems;
+export function planProblems(value: unknown): string[] {
+  return readPlan(value).problems;
 }
 
 function evBays(plan: DrivewayPlan): { bay: PlanBay; index: number }[] {
   const all = plan.bays.map((bay, index) => ({ bay, index }));
   const marked = all.filter(({ bay }) => bay.forEv === true);
   return marked.length > 0 ? marked : all;
-}
-
-function isPoint(point: Point | null | undefined): boolean {
-  return !!point && Number.isFinite(point.x) && Number.isFinite(point.y);
-}
-
-function isBay(bay: PlanBay): boolean {
-  return isPoint(bay) && positive(bay.width) !== null && positive(bay.length) !== null && (bay.angle === 0 || bay.angle === 90);
 }
 
 function positive(value: number | null | undefined): number | null {

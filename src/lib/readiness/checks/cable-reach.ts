@@ -1,6 +1,6 @@
 // Cable reach: whether the charging cable reaches the car's charge port in every way the
 // car is parked, measured on the customer's driveway plan.
-import { carSize, planProblems, reachVerdict, type ReachVerdict } from '../plan';
+import { carSize, readPlan, reachVerdict, type ReachVerdict } from '../plan';
 import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
 import type { ChargePort, ChargerAnswers, CheckInput, CheckResult, ParkingHabit, ParkingWay } from '../types';
 import { formatNumber, positiveOrNull } from '../units';
@@ -42,12 +42,12 @@ export function cableForReach(charger: ChargerAnswers, settings: ReadinessSettin
  */
 export function checkCableReach({ answers, settings }: CheckInput): CheckResult {
   const charger = answers.charger ?? {};
-  const plan = charger.plan ?? null;
   const habit: ParkingHabit = answers.parking?.habit ?? 'varies';
   const cable = cableForReach(charger, settings);
-  if (!plan) return gapResult('No driveway plan yet.', 'Draw your driveway plan in the charge point step.', cable);
-  const problems = planProblems(plan);
-  if (problems.length > 0) return gapResult(`Plan incomplete: ${problems.join(' ')}`, problems[0] as string, cable);
+  if (!charger.plan) return gapResult('No driveway plan yet.', 'Draw your driveway plan in the charge point step.', cable);
+  // The plan arrives as saved JSON: read it through its schema before measuring anything.
+  const { plan, problems } = readPlan(charger.plan);
+  if (!plan) return gapResult(`Plan incomplete: ${problems.join(' ')}`, problems[0] as string, cable);
   const port = plan.chargePort ?? answers.vehicle?.chargePort ?? null;
   if (!port) return gapResult('Charge port position not given.', "Tell us where the charge port is on your car.", cable);
   const verdicts = reachVerdict(plan, cable.metres, habit, {

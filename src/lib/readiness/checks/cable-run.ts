@@ -158,9 +158,14 @@ function customerText(
   const base = `A cable run of about ${formatNumber(metres)} m ${routeWords(route)} looks workable.`;
   if (light === 'green') return base;
   const costly = route !== null && COSTLY_ROUTES.includes(route);
+  const long = metres > settings.longRunMetres;
   const extra: string[] = [];
-  if (costly) extra.push('Routes through the house or under the drive take more work, so the quote may be higher.');
-  if (metres > settings.longRunMetres) extra.push(`Runs over ${settings.longRunMetres} m need more cable and time, so the quote may be higher.`);
+  if (costly || long) {
+    const why = [costly ? `it goes ${routeWords(route)}` : '', long ? `it is longer than ${settings.longRunMetres} m` : '']
+      .filter(Boolean)
+      .join(' and ');
+    extra.push(`Because ${why}, it takes more cable and work, so the quote may be higher.`);
+  }
   if (route === null) extra.push('Please tell us how the cable could get from your fuse box to the charger.');
   return `${base} ${extra.join(' ')}`;
 }

@@ -80,13 +80,19 @@ function knownFuseCustomerText(
   if (light === 'red') {
     return `${most} — more than your ${fuseAmps} A main fuse. This is common and can be sorted: the installer can fit a device that slows charging when the house is busy, or your network operator can upgrade the fuse. ${FUSE_CAUTION}`;
   }
-  const unknownLoads = demand.loadsDeclared ? '' : " We haven't heard about your big electrical appliances yet, so this may go up.";
   if (light === 'green') {
     return `${most}, comfortably within your ${fuseAmps} A main fuse (about ${formatNumber(headroom)} A to spare).`;
   }
-  const small =
-    fuseAmps <= settings.smallFuseAmps ? ` A ${fuseAmps} A main fuse is on the small side for a charger, so the installer will look at it closely.` : '';
-  return `${most}, within your ${fuseAmps} A main fuse but with only about ${formatNumber(headroom)} A to spare.${small}${unknownLoads} ${FUSE_CAUTION}`;
+  const notes: string[] = [];
+  notes.push(
+    headroom < settings.headroomMarginAmps
+      ? `${most}, within your ${fuseAmps} A main fuse but with only about ${formatNumber(headroom)} A to spare, so the installer may fit a device that slows charging when the house is busy.`
+      : `${most}, within your ${fuseAmps} A main fuse.`,
+  );
+  if (fuseAmps <= settings.smallFuseAmps) notes.push(`A ${fuseAmps} A main fuse is on the small side for a charger, so the installer will look at it closely.`);
+  if (!demand.loadsDeclared) notes.push("We haven't heard about your big electrical appliances yet, so this may go up.");
+  notes.push(FUSE_CAUTION);
+  return notes.join(' ');
 }
 
 function knownFuseStaffText(
