@@ -58,6 +58,7 @@ try {
   }
   const entry = build('dist', env);
   startChild('app', 'node', [entry], { env, quiet: true });
+  startChild('worker', join(root, 'node_modules', '.bin', 'tsx'), ['scripts/worker.ts'], { env, quiet: true });
   await waitForHttp(`${appUrl}/api/health`);
   console.log(`
   Groundwork is running at ${appUrl}

@@ -52,6 +52,8 @@ try {
     HOST: '127.0.0.1',
     PORT: String(appPort),
     GROUNDWORK_TEST: '1',
+    // Tests drive reminder sweeps themselves; the background schedule stays out of their way.
+    REMINDER_SWEEP_CRON: '0 4 1 1 *',
   };
   runTsx('seeds/run.ts', env);
   startChild('fake mail', 'node', ['fake-services/mail-server.mjs'], {
@@ -62,6 +64,7 @@ try {
   const entry = build(outDir, env);
   env.APP_ENTRY = entry;
   startChild('app', 'node', [entry], { env, quiet: true });
+  startChild('worker', join(root, 'node_modules', '.bin', 'tsx'), ['scripts/worker.ts'], { env, quiet: true });
   await waitForHttp(`${appUrl}/api/health`);
   const testEnv = { ...process.env, ...env, MAIL_API_URL: `http://127.0.0.1:${mailHttpPort}`, CHROMIUM_PATH: chromium };
   const vitest = join(root, 'node_modules', '.bin', 'vitest');

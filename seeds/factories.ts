@@ -3,6 +3,16 @@ import bcrypt from 'bcryptjs';
 import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import { auditLog, cases, users, type Role, type Stage } from '../src/db/schema';
 import { newCaseReference } from '../src/lib/case-reference';
+import { runChecks, type ChecklistAnswers } from '../src/lib/readiness';
+
+const rank = { red: 0, amber: 1, green: 2 } as const;
+const today = () => new Date().toISOString().slice(0, 10);
+
+/** The readiness columns for a checklist with no uploads yet, with default settings. */
+export function readinessColumns(checklist: Record<string, unknown>) {
+  const r = runChecks({ answers: checklist as ChecklistAnswers, uploads: [], today: today() });
+  return { readinessLight: r.light, readinessRank: rank[r.light], readinessGaps: r.gapCount, readinessChecks: r.checks, readinessAt: new Date() };
+}
 
 type Db = PostgresJsDatabase<Record<string, unknown>>;
 
@@ -53,6 +63,7 @@ export async function createCase(db: Db, input: CaseInput) {
           surveyorId: input.surveyorId ?? null,
           surveyDate: input.surveyDate ?? null,
           invitedAt,
+          ...readinessColumns(input.checklist ?? {}),
         })
         .returning();
       await db.insert(auditLog).values({ caseId: row!.id, action: 'case.created', entity: 'case', entityId: row!.id, after: { stage: row!.stage } });

@@ -21,6 +21,8 @@ import type { AdapterAccountType } from '@auth/core/adapters';
 
 export const roleEnum = pgEnum('role', ['customer', 'admin', 'surveyor']);
 
+export const lightEnum = pgEnum('readiness_light', ['green', 'amber', 'red']);
+
 export const stageEnum = pgEnum('case_stage', [
   'invited',
   'filling_in',
@@ -114,6 +116,14 @@ export const cases = pgTable(
     invitedAt: timestamp('invited_at', { withTimezone: true }).notNull().defaultNow(),
     submittedAt: timestamp('submitted_at', { withTimezone: true }),
     lastCustomerActivityAt: timestamp('last_customer_activity_at', { withTimezone: true }),
+    // The readiness as last computed (src/lib/readiness), stored so the queue can filter and sort on it.
+    readinessLight: lightEnum('readiness_light').notNull().default('amber'),
+    readinessRank: integer('readiness_rank').notNull().default(1),
+    readinessGaps: integer('readiness_gaps').notNull().default(0),
+    readinessChecks: jsonb('readiness_checks').notNull().default([]),
+    readinessAt: timestamp('readiness_at', { withTimezone: true }),
+    remindersSent: integer('reminders_sent').notNull().default(0),
+    lastChasedAt: timestamp('last_chased_at', { withTimezone: true }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
@@ -121,6 +131,9 @@ export const cases = pgTable(
     index('cases_customer_idx').on(t.customerId),
     index('cases_stage_idx').on(t.stage),
     index('cases_surveyor_idx').on(t.surveyorId),
+    index('cases_light_idx').on(t.readinessRank, t.invitedAt),
+    index('cases_invited_idx').on(t.invitedAt),
+    index('cases_postcode_idx').on(t.postcode),
   ],
 );
 
@@ -141,7 +154,89 @@ export const auditLog = pgTable(
   (t) => [index('audit_case_idx').on(t.caseId, t.at)],
 );
 
+export const uploadKindEnum = pgEnum('upload_kind', [
+  'meter_photo',
+  'cutout_photo',
+  'consumer_unit_photo',
+  'charger_location_photo',
+  'parking_evidence',
+  'order_agreement',
+  'landlord_permission',
+  'other',
+]);
+
+export const uploadStatusEnum = pgEnum('upload_status', ['waiting', 'accepted', 'rejected']);
+
+/**
+ * One photo or document a case's customer (or the office) sent. The bytes live in storage
+ * under `storage_key` (a random id, never the user's name); images are re-encoded first.
+ */
+export const uploads = pgTable(
+  'uploads',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    caseId: uuid('case_id')
+      .notNull()
+      .references(() => cases.id, { onDelete: 'cascade' }),
+    kind: uploadKindEnum('kind').notNull(),
+    mimeType: text('mime_type').notNull(),
+    sizeBytes: integer('size_bytes').notNull(),
+    /** Hex SHA-256 of the stored bytes (after re-encoding), not of what was sent. */
+    sha256: text('sha256').notNull(),
+    width: integer('width'),
+    height: integer('height'),
+    /** The sender's file name, sanitised; metadata only, never a path. */
+    originalName: text('original_name'),
+    uploadedBy: text('uploaded_by').references(() => users.id, { onDelete: 'set null' }),
+    status: uploadStatusEnum('status').notNull().default('waiting'),
+    reason: text('reason'),
+    reviewedBy: text('reviewed_by').references(() => users.id, { onDelete: 'set null' }),
+    reviewedAt: timestamp('reviewed_at', { withTimezone: true }),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+    storageKey: text('storage_key').notNull().unique(),
+    thumbKey: text('thumb_key'),
+  },
+  (t) => [index('uploads_case_idx').on(t.caseId, t.createdAt)],
+);
+
 export type User = typeof users.$inferSelect;
 export type Role = (typeof roleEnum.enumValues)[number];
 export type Stage = (typeof stageEnum.enumValues)[number];
 export type CaseRow = typeof cases.$inferSelect;
+export type UploadRow = typeof uploads.$inferSelect;
+
+/** Office notes on a case, newest last. */
+export const caseNotes = pgTable(
+  'case_notes',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    caseId: uuid('case_id')
+      .notNull()
+      .references(() => cases.id, { onDelete: 'cascade' }),
+    authorId: text('author_id').references(() => users.id, { onDelete: 'set null' }),
+    body: text('body').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('case_notes_case_idx').on(t.caseId, t.createdAt)],
+);
+
+/** Every e-mail Groundwork sends about a case: the history on the case page. */
+export const emailLog = pgTable(
+  'email_log',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    caseId: uuid('case_id').references(() => cases.id, { onDelete: 'cascade' }),
+    kind: text('kind').notNull(),
+    toEmail: text('to_email').notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    sentById: text('sent_by_id').references(() => users.id, { onDelete: 'set null' }),
+    messageId: text('message_id'),
+    // For scheduled reminders: the slot key makes a retried job unable to send twice.
+    dedupeKey: text('dedupe_key').unique(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('email_log_case_idx').on(t.caseId, t.createdAt)],
+);
+
+export type Light = (typeof lightEnum.enumValues)[number];

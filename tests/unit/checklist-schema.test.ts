@@ -182,9 +182,14 @@ describe('null and blank clear a field', () => {
     expect(mergeChecklist(saved, parse({ supply: { loads: null } }).data!).supply).toEqual({});
   });
 
+  it('refuses a plan that is not a driveway plan', () => {
+    expect(parse({ charger: { plan: { a: 1 } } }).data).toBeUndefined();
+  });
+
   it('replaces the charger plan whole', () => {
-    const saved: Checklist = { charger: { plan: { a: 1, b: 2 } } };
-    expect(mergeChecklist(saved, parse({ charger: { plan: { c: 3 } } }).data!).charger?.plan).toEqual({ c: 3 });
+    const plan = (x: number) => ({ wall: { x0: 0, x1: 8 }, chargePoint: { x, y: 0 }, bays: [], car: { sizeClass: 'small' as const } });
+    const saved: Checklist = { charger: { plan: { ...plan(1), chargePort: 'front-left' } } };
+    expect(mergeChecklist(saved, parse({ charger: { plan: plan(2) } }).data!).charger?.plan).toEqual(plan(2));
   });
 });
 

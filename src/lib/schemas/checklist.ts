@@ -7,6 +7,7 @@ import { checkUkPhone } from '../validation/phone';
 import { checkPostcode } from '../validation/postcode';
 import { checkRegistration } from '../validation/registration';
 import { checkVin } from '../validation/vin';
+import { drivewayPlanSchema } from '../readiness/plan';
 
 /** The data sections, in the order the customer meets them, with their customer-facing titles. */
 export const sectionIds = [
@@ -195,7 +196,7 @@ export const parkingPatchSchema = z
   })
   .strict();
 
-/** Charge point and cable route. `plan` is free-form until a later issue defines it. */
+/** Charge point and cable route. `plan` is the to-scale driveway sketch (src/lib/readiness/plan.ts). */
 export const chargerPatchSchema = z
   .object({
     location: text(500),
@@ -205,7 +206,7 @@ export const chargerPatchSchema = z
     softGroundMetres: amount(0, 100, 'Please give the distance to soft ground in metres, from 0 to 100.'),
     preference: choice(['tethered', 'socketed'], 'Please choose tethered or socketed.'),
     tetherMetres: amount(1, 25, 'Please give the cable length in metres, from 1 to 25.'),
-    plan: z.record(z.unknown()).nullish(),
+    plan: drivewayPlanSchema.nullish(),
   })
   .strict();
 

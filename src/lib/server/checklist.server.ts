@@ -5,6 +5,7 @@ import { mergeChecklist, sectionProgress, type Checklist, type ChecklistPatch } 
 import { audit } from './audit.server';
 import { editableStages, toCaseView } from './case-view.server';
 import { db } from './db.server';
+import { refreshReadiness } from './readiness.server';
 import { HttpError } from './http';
 import type { SessionUser } from './users.server';
 
@@ -72,10 +73,12 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
       },
       tx,
     );
+    await refreshReadiness(row.id, tx);
     if (current.stage !== saved!.stage) {
       await audit({ caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: current.stage }, after: { stage: saved!.stage } }, tx);
     }
-    return toCaseView(saved!);
+    const [fresh] = await tx.select().from(cases).where(eq(cases.id, row.id));
+    return toCaseView(fresh!);
   });
 }
 

@@ -55,3 +55,58 @@ export function caseSubmittedEmail(input: { reference: string; customer: string;
     ]),
   };
 }
+
+export function invitationEmail(input: { customerName: string; firmName: string; url: string; note?: string }) {
+  return {
+    subject: `${input.firmName}: let’s get your home ready for its charge point`,
+    ...renderEmail(`Hello ${input.customerName.split(' ')[0]}, let’s get your home ready`, [
+      {
+        kind: 'p',
+        text:
+          `${input.firmName} uses Groundwork to collect what they need before your charge point survey. ` +
+          'You’ll be asked about you and your home, your car and when it arrives, your electricity supply (the MPAN from a bill, ' +
+          'and photos of your meter, main fuse and fuse box — photos only, never open anything), where the car parks, and where ' +
+          'you’d like the charger. It saves as you go, so you can do it in several sittings, on your phone or a computer.',
+      },
+      ...(input.note ? [{ kind: 'p' as const, text: `A note from ${input.firmName}: ${input.note}` }] : []),
+      { kind: 'button', text: 'Start my checklist', href: input.url },
+      { kind: 'p', text: 'This link signs you in once and lasts 7 days. After that, ask for a new link on the sign-in page with this e-mail address.' },
+    ]),
+  };
+}
+
+export function chaseEmail(input: { customerName: string; firmName: string; items: string[]; url: string; reminder?: boolean }) {
+  return {
+    subject: input.reminder ? 'A reminder: a few things still needed for your charge point' : `${input.firmName} needs a few more things for your charge point`,
+    ...renderEmail(`Hello ${input.customerName.split(' ')[0]}, a few things are still missing`, [
+      { kind: 'p', text: 'Before we can book your survey, we still need:' },
+      { kind: 'list', items: input.items },
+      { kind: 'button', text: 'Carry on with my checklist', href: input.url },
+      { kind: 'p', text: 'Photos only, please: never open the meter, the main fuse or your fuse box. If something is hard to find, reply and we’ll help.' },
+    ]),
+  };
+}
+
+export function rejectionEmail(input: { customerName: string; what: string; reason: string; goodLooksLike: string; url: string }) {
+  return {
+    subject: `Please send a new ${input.what}`,
+    ...renderEmail(`We need a new ${input.what}`, [
+      { kind: 'p', text: `Thank you for sending it. Unfortunately we can’t use this one: ${input.reason}` },
+      { kind: 'p', text: `A good one shows: ${input.goodLooksLike}` },
+      { kind: 'button', text: 'Send a new one', href: input.url },
+      { kind: 'p', text: 'Photos only: never open the meter, the main fuse (cut-out) or your fuse box, and never remove covers.' },
+    ]),
+  };
+}
+
+export function surveyBookedEmail(input: { customerName: string; firmName: string; date: string; surveyorName: string; url: string }) {
+  const when = new Intl.DateTimeFormat('en-GB', { weekday: 'long', day: 'numeric', month: 'long', year: 'numeric', timeZone: 'Europe/London' }).format(new Date(`${input.date}T12:00:00Z`));
+  return {
+    subject: `Your charge point survey is booked for ${when}`,
+    ...renderEmail('Your survey is booked', [
+      { kind: 'p', text: `${input.surveyorName} from ${input.firmName} will visit on ${when} to survey your home for its charge point.` },
+      { kind: 'p', text: 'They’ll want to see the meter, the main fuse, the consumer unit and where you’d like the charger, so please make sure they can get to them.' },
+      { kind: 'button', text: 'See my case', href: input.url },
+    ]),
+  };
+}

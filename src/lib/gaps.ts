@@ -1,0 +1,33 @@
+// Client-safe: what a customer still has to do, in plain words — the list chasers e-mail and
+// the checklist shows. Built from the same rules as the readiness checks.
+import { sectionProgress, type Checklist } from './schemas/checklist';
+import { fieldLabel } from './field-labels';
+import { requiredUploadKinds } from './readiness/checks/documents';
+import { uploadKindLabels, uploadKindStatus } from './readiness/upload-status';
+import type { ChecklistAnswers, UploadSummary } from './readiness/types';
+
+export type CustomerGap = { section: string; title: string; text: string };
+
+/**
+ * Every missing answer, missing upload and rejected upload, each as one plain sentence.
+ * @example customerGaps({}, [])[0] // { section: 'about', title: 'About you', text: 'Tell us your name.' }
+ */
+export function customerGaps(checklist: Checklist, uploads: readonly UploadSummary[]): CustomerGap[] {
+  const gaps: CustomerGap[] = [];
+  for (const s of sectionProgress(checklist)) {
+    if (s.missing.length === 0) continue;
+    gaps.push({ section: s.id, title: s.title, text: `${s.title}: add ${s.missing.map((f) => fieldLabel(s.id, f)).join(', ')}.` });
+  }
+  for (const kind of requiredUploadKinds(checklist as ChecklistAnswers)) {
+    const status = uploadKindStatus(kind, uploads);
+    if (status.state === 'missing') gaps.push({ section: 'uploads', title: 'Photos and documents', text: `Upload a ${uploadKindLabels[kind]}.` });
+    if (status.state === 'rejected') {
+      gaps.push({
+        section: 'uploads',
+        title: 'Photos and documents',
+        text: `Send a new ${uploadKindLabels[kind]}${status.reason ? ` — your installer said: “${status.reason}”` : ''}.`,
+      });
+    }
+  }
+  return gaps;
+}

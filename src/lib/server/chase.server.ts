@@ -1,0 +1,50 @@
+// Server-only: chasing a customer for what is missing — by hand from the office, or on a schedule.
+import { eq, sql } from 'drizzle-orm';
+import { cases, users, type CaseRow } from '../../db/schema';
+import { customerGaps } from '../gaps';
+import type { Checklist } from '../schemas/checklist';
+import { audit } from './audit.server';
+import { sendCaseMail } from './case-mail.server';
+import { db } from './db.server';
+import { chaseEmail } from './email-templates.server';
+import { HttpError } from './http';
+import { firm } from './office.server';
+import { uploadSummaries } from './readiness.server';
+import { signInLink } from './sign-in-links.server';
+
+export type ChaseResult = { caseId: string; sent: boolean; items: string[]; reason?: string };
+
+/**
+ * E-mails the customer exactly what is missing or rejected, with a sign-in link, and records it.
+ * A reminder passes its slot as dedupeKey so it cannot go twice.
+ */
+export async function chaseCase(row: CaseRow, opts: { actorId: string | null; reminder?: boolean; dedupeKey?: string }): Promise<ChaseResult> {
+  const items = customerGaps(row.checklist as Checklist, await uploadSummaries(row.id)).map((g) => g.text);
+  if (items.length === 0) return { caseId: row.id, sent: false, items, reason: 'Nothing is missing.' };
+  if (row.stage === 'surveyed' || row.stage === 'withdrawn') return { caseId: row.id, sent: false, items, reason: 'The case is closed.' };
+  const [customer] = await db().select().from(users).where(eq(users.id, row.customerId));
+  if (!customer?.active) return { caseId: row.id, sent: false, items, reason: 'The customer’s account is not active.' };
+  const office = await firm();
+  const url = await signInLink(customer.email, { days: 7, next: `/my/cases/${row.id}` });
+  const sent = await sendCaseMail({
+    caseId: row.id,
+    kind: opts.reminder ? 'reminder' : 'chase',
+    sentById: opts.actorId,
+    dedupeKey: opts.dedupeKey,
+    mail: { to: customer.email, ...chaseEmail({ customerName: customer.name ?? '', firmName: office.name, items, url, reminder: opts.reminder }) },
+  });
+  if (!sent) return { caseId: row.id, sent: false, items, reason: 'Already sent.' };
+  await db()
+    .update(cases)
+    .set({ lastChasedAt: new Date(), ...(opts.reminder ? { remindersSent: sql`${cases.remindersSent} + 1` } : {}) })
+    .where(eq(cases.id, row.id));
+  await audit({ caseId: row.id, actorId: opts.actorId, action: opts.reminder ? 'case.reminded' : 'case.chased', entity: 'case', entityId: row.id, after: { items } });
+  return { caseId: row.id, sent: true, items };
+}
+
+/** The office's chase button: 409 when there is nothing to chase. */
+export async function chaseFromOffice(row: CaseRow, actorId: string): Promise<ChaseResult> {
+  const result = await chaseCase(row, { actorId });
+  if (!result.sent) throw new HttpError(409, 'conflict', result.reason ?? 'Nothing to chase.');
+  return result;
+}

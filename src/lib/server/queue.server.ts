@@ -1,0 +1,113 @@
+// Server-only: the office queue — filter, search, sort and paginate cases in SQL, never in memory.
+import { and, asc, desc, eq, inArray, isNull, or, sql, type SQL } from 'drizzle-orm';
+import { alias } from 'drizzle-orm/pg-core';
+import { cases, users } from '../../db/schema';
+import type { QueueItem, QueueQuery, QueueSortKey } from '../schemas/queue';
+import { db } from './db.server';
+import type { SessionUser } from './users.server';
+
+const surveyors = alias(users, 'surveyor');
+const deliveryDate = sql<string | null>`(${cases.checklist} -> 'vehicle' ->> 'deliveryDate')`;
+const mpan = sql`(${cases.checklist} -> 'supply' ->> 'mpanCore')`;
+
+const sortColumns: Record<QueueSortKey, SQL | ReturnType<typeof sql>> = {
+  customer: sql`lower(${users.name})`,
+  address: sql`lower(${cases.addressLine1})`,
+  light: sql`${cases.readinessRank}`,
+  gaps: sql`${cases.readinessGaps}`,
+  stage: sql`${cases.stage}`,
+  invited: sql`${cases.invitedAt}`,
+  activity: sql`${cases.lastCustomerActivityAt}`,
+  delivery: deliveryDate,
+  surveyor: sql`lower(${surveyors.name})`,
+  survey: sql`${cases.surveyDate}`,
+};
+
+/** The WHERE clause for a query, scoped to what this member of staff may see. */
+function where(user: SessionUser, q: QueueQuery): SQL | undefined {
+  const parts: (SQL | undefined)[] = [];
+  if (user.role === 'surveyor') parts.push(eq(cases.surveyorId, user.id));
+  if (q.light?.length) parts.push(inArray(cases.readinessLight, q.light));
+  if (q.stage?.length) parts.push(inArray(cases.stage, q.stage));
+  if (q.surveyor === 'none') parts.push(isNull(cases.surveyorId));
+  else if (q.surveyor) parts.push(eq(cases.surveyorId, q.surveyor));
+  if (q.deliveryWithin !== undefined) {
+    parts.push(sql`${deliveryDate} <= to_char((now() at time zone 'Europe/London')::date + ${q.deliveryWithin}::int, 'YYYY-MM-DD')`);
+  }
+  if (q.q) {
+    const term = `%${q.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+    const digits = q.q.replace(/\s/g, '');
+    parts.push(
+      or(
+        sql`${users.name} ilike ${term}`,
+        sql`${users.email} ilike ${term}`,
+        sql`replace(${cases.postcode}, ' ', '') ilike ${`%${digits.replace(/[\\%_]/g, (c) => `\\${c}`)}%`}`,
+        sql`${cases.reference} ilike ${term}`,
+        /^\d{4,13}$/.test(digits) ? sql`${mpan} like ${`${digits}%`}` : undefined,
+      ),
+    );
+  }
+  return and(...parts);
+}
+
+const columns = {
+  id: cases.id,
+  reference: cases.reference,
+  customerName: users.name,
+  customerEmail: users.email,
+  addressLine1: cases.addressLine1,
+  town: cases.town,
+  postcode: cases.postcode,
+  light: cases.readinessLight,
+  gapCount: cases.readinessGaps,
+  gaps: sql<string[]>`coalesce(jsonb_path_query_array(${cases.readinessChecks}, '$[*] ? (@.light != "green").title'), '[]'::jsonb)`,
+  stage: cases.stage,
+  invitedAt: cases.invitedAt,
+  daysSinceInvite: sql<number>`(extract(epoch from now() - ${cases.invitedAt}) / 86400)::int`,
+  lastCustomerActivityAt: cases.lastCustomerActivityAt,
+  deliveryDate,
+  surveyorId: cases.surveyorId,
+  surveyorName: surveyors.name,
+  surveyDate: cases.surveyDate,
+};
+
+type Row = { [K in keyof typeof columns]: unknown };
+
+function toItem(r: Row): QueueItem {
+  const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : (d as string | null));
+  return { ...(r as unknown as QueueItem), invitedAt: iso(r.invitedAt)!, lastCustomerActivityAt: iso(r.lastCustomerActivityAt) };
+}
+
+/**
+ * One page of the queue plus the total matching.
+ * @example await queuePage(admin, queueQuerySchema.parse({ light: 'red', sort: 'invited', dir: 'desc' }))
+ */
+export async function queuePage(user: SessionUser, q: QueueQuery): Promise<{ items: QueueItem[]; total: number; page: number; pageSize: number }> {
+  const filter = where(user, q);
+  const order = q.dir === 'desc' ? desc : asc;
+  const sortKey = sortColumns[q.sort];
+  const base = () =>
+    db().select(columns).from(cases).innerJoin(users, eq(users.id, cases.customerId)).leftJoin(surveyors, eq(surveyors.id, cases.surveyorId)).where(filter);
+  const [rows, [count]] = await Promise.all([
+    base()
+      .orderBy(sql`${order(sortKey as SQL)} nulls last`, desc(cases.invitedAt), asc(cases.id))
+      .limit(q.pageSize)
+      .offset((q.page - 1) * q.pageSize),
+    db()
+      .select({ n: sql<number>`count(*)::int` })
+      .from(cases)
+      .innerJoin(users, eq(users.id, cases.customerId))
+      .leftJoin(surveyors, eq(surveyors.id, cases.surveyorId))
+      .where(filter),
+  ]);
+  return { items: rows.map(toItem), total: count?.n ?? 0, page: q.page, pageSize: q.pageSize };
+}
+
+/** Every matching row for the CSV export, streamed a page at a time. */
+export async function* queueRows(user: SessionUser, q: QueueQuery): AsyncGenerator<QueueItem> {
+  for (let page = 1; ; page++) {
+    const { items } = await queuePage(user, { ...q, page, pageSize: 200 });
+    yield* items;
+    if (items.length < 200) return;
+  }
+}

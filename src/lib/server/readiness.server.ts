@@ -1,0 +1,54 @@
+// Server-only: computes a case's readiness from its answers and uploads, and stores the result
+// on the case so the office queue can filter and sort by it without recomputing.
+import { eq, notInArray } from 'drizzle-orm';
+import { cases, uploads, type CaseRow } from '../../db/schema';
+import { runChecks, type ChecklistAnswers, type ReadinessResult, type UploadSummary } from '../readiness';
+import { db } from './db.server';
+import { readinessSettings, todayInGb } from './settings.server';
+
+type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
+type Conn = Tx | ReturnType<typeof db>;
+
+/** Red sorts first, then amber, then green: the queue's "worst first" order. */
+export const lightRank = { red: 0, amber: 1, green: 2 } as const;
+
+export async function uploadSummaries(caseId: string, conn: Conn = db()): Promise<UploadSummary[]> {
+  return conn.select({ kind: uploads.kind, status: uploads.status, reason: uploads.reason }).from(uploads).where(eq(uploads.caseId, caseId));
+}
+
+/** Readiness for one case as it stands in the database now. */
+export async function computeReadiness(row: Pick<CaseRow, 'id' | 'checklist'>, conn: Conn = db()): Promise<ReadinessResult> {
+  const [summaries, settings] = await Promise.all([uploadSummaries(row.id, conn), readinessSettings()]);
+  return runChecks({ answers: row.checklist as ChecklistAnswers, uploads: summaries, settings, today: todayInGb() });
+}
+
+/**
+ * Recomputes and stores the readiness of one case; call it inside the transaction that changed
+ * the answers or uploads so the stored light never disagrees with them.
+ */
+export async function refreshReadiness(caseId: string, conn: Conn = db()): Promise<ReadinessResult | undefined> {
+  const [row] = await conn.select({ id: cases.id, checklist: cases.checklist }).from(cases).where(eq(cases.id, caseId));
+  if (!row) return undefined;
+  const result = await computeReadiness(row, conn);
+  await conn
+    .update(cases)
+    .set({
+      readinessLight: result.light,
+      readinessRank: lightRank[result.light],
+      readinessGaps: result.gapCount,
+      readinessChecks: result.checks,
+      readinessAt: new Date(),
+    })
+    .where(eq(cases.id, caseId));
+  return result;
+}
+
+/** After a settings change or a new day: recompute every open case. */
+export async function refreshAllOpenCases(): Promise<number> {
+  const ids = await db()
+    .select({ id: cases.id })
+    .from(cases)
+    .where(notInArray(cases.stage, ['surveyed', 'withdrawn']));
+  for (const { id } of ids) await refreshReadiness(id);
+  return ids.length;
+}
