@@ -38,12 +38,12 @@ export async function seedDemo(db: Db, password: string) {
     stage: 'filling_in',
     addressLine1: '14 Tanners Row',
     town: 'Quillbury',
-    postcode: 'AB12 3CD',
+    postcode: 'AB12 3DE',
     invitedDaysAgo: 4,
     checklist: {
       about: {
         fullName: 'Maren Oakes', email: 'customer@example.com', phone: '+441134960123', addressLine1: '14 Tanners Row',
-        town: 'Quillbury', postcode: 'AB12 3CD', tenure: 'owner', propertyType: 'house',
+        town: 'Quillbury', postcode: 'AB12 3DE', tenure: 'owner', propertyType: 'house',
       },
       vehicle: { make: 'Example Motors', model: 'Volta 5', condition: 'new', deliveryDate: daysFromNow(40), connector: 'type2' },
     },
@@ -67,7 +67,7 @@ export async function seedDemo(db: Db, password: string) {
     stage: 'in_review',
     addressLine1: 'Wheelwright Cottage, Long Street',
     town: 'Quillbury',
-    postcode: 'AB12 9JK',
+    postcode: 'AB12 9JL',
     invitedDaysAgo: 20,
     checklist: {
       supply: { mpanCore: demoMpan('20', '1029384756'), mainFuseAmps: 80, looped: 'no', earthing: 'pme', loads: { showerKw: 9.5, cooker: true } },
@@ -79,7 +79,7 @@ export async function seedDemo(db: Db, password: string) {
     stage: 'ready_for_survey',
     addressLine1: '27 Chandlers Way',
     town: 'Quillbury',
-    postcode: 'AB14 2LM',
+    postcode: 'AB14 2LN',
     invitedDaysAgo: 26,
   });
   await createCase(db, {

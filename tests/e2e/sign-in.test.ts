@@ -10,7 +10,7 @@ afterAll(close);
 describe('signing in, in Chromium', () => {
   it('a customer asks for a link, follows it from the inbox and lands on their home', async () => {
     const user = await createUser(db, { role: 'customer', name: 'Hana Pemberton' });
-    await createCase(db, { customerId: user.id, addressLine1: '5 Kestrel Walk', town: 'Quillbury', postcode: 'AB1 2CD' });
+    await createCase(db, { customerId: user.id, addressLine1: '5 Kestrel Walk', town: 'Quillbury', postcode: 'AB1 2DE' });
     const { page, context } = await newPage(PHONE);
     await page.goto('/');
     await snap(page, 'landing-390');

@@ -37,7 +37,7 @@ describe('who may see what', () => {
   });
 
   it('shows each role its own home page', async () => {
-    const { client: customer, user } = await newCustomer({ addressLine1: '1 Test Street', town: 'Quillbury', postcode: 'AB1 2CD' });
+    const { client: customer, user } = await newCustomer({ addressLine1: '1 Test Street', town: 'Quillbury', postcode: 'AB1 2DE' });
     const page = await (await customer.fetch('/my')).text();
     expect(page).toContain('1 Test Street');
     expect(page).toContain('Hello, Test');
