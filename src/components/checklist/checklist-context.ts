@@ -1,0 +1,24 @@
+// What every field needs from the checklist around it: the form, and the way to queue a save.
+import { createContext, useContext } from 'react';
+import type { UseFormReturn } from 'react-hook-form';
+import type { FormValues } from './form-values';
+
+export type ChecklistContext = {
+  form: UseFormReturn<FormValues>;
+  /** Queues a field's new value: `soon` while typing, `now` for a choice or on leaving a field. */
+  edit(path: string, value: string, when: 'soon' | 'now'): void;
+};
+
+export const ChecklistCtx = createContext<ChecklistContext | null>(null);
+
+/** The surrounding checklist; fields only ever render inside one. */
+export function useChecklist(): ChecklistContext {
+  const ctx = useContext(ChecklistCtx);
+  if (!ctx) throw new Error('Checklist fields must sit inside <ChecklistCtx.Provider>.');
+  return ctx;
+}
+
+/** A stable element id for a dotted path. @example fieldId('supply.mpanCore') // 'f-supply-mpanCore' */
+export function fieldId(path: string): string {
+  return `f-${path.replace(/\./g, '-')}`;
+}

@@ -1,0 +1,54 @@
+// Step 5, Charge point and cable route: where it goes, how the cable gets there, which kind.
+import { ChoiceField, NumberField, TextField, useFieldValue } from './fields';
+import { MoreHelp, Note } from './notes';
+
+export function ChargerStep() {
+  const softGround = useFieldValue('charger.softGround');
+  const preference = useFieldValue('charger.preference');
+  return (
+    <div className="space-y-6">
+      <TextField
+        path="charger.location"
+        multiline
+        help="For example: “front wall of the house, to the left of the door” or “inside the garage, by the up-and-over door”."
+      />
+      <NumberField
+        path="charger.cableRunMetres"
+        placeholder="e.g. 8"
+        help="From the consumer unit to that spot, following the walls rather than a straight line. A rough guess is fine; the surveyor will measure."
+      />
+      <ChoiceField path="charger.route" />
+      <ChoiceField
+        path="charger.softGround"
+        columns={2}
+        help="Open soil, such as a lawn or a flower bed, within a few metres of the charge point. Paving, tarmac and concrete don’t count."
+      >
+        <MoreHelp summary="Why do you ask about soft ground?">
+          <p>
+            Some homes need an earth rod for the charge point: a metal rod driven into the ground nearby, with a cable to it. That is far
+            easier in open soil than through a hard surface. Your electrician decides whether one is needed.
+          </p>
+        </MoreHelp>
+      </ChoiceField>
+      {softGround === 'yes' && <NumberField path="charger.softGroundMetres" placeholder="e.g. 3" />}
+      <ChoiceField path="charger.preference">
+        <MoreHelp summary="Which should I choose?">
+          <p>
+            Tethered is quicker day to day: nothing to get out of the boot. Socketed looks tidier when not in use and works with any cable
+            length, but you keep and plug in your own cable. Either is fine for the survey; you can change your mind later.
+          </p>
+        </MoreHelp>
+      </ChoiceField>
+      {preference === 'tethered' && (
+        <NumberField path="charger.tetherMetres" placeholder="e.g. 5" help="Most attached cables are about 5 m. Longer ones, such as 7.5 m or 10 m, are available." />
+      )}
+      <Note>
+        <p className="font-semibold text-ground-900">Your electrician has the final say</p>
+        <p>
+          These answers help your installer prepare. The charge point itself is designed, fitted and certified by a qualified electrician,
+          under BS 7671 (the UK wiring regulations), the IET Code of Practice for EV charging, and local building and planning rules.
+        </p>
+      </Note>
+    </div>
+  );
+}

@@ -1,0 +1,132 @@
+// Step 3, Your supply: the MPAN, the main fuse, earthing and the big loads already in the home.
+import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore } from '../../lib/validation/mpan';
+import { CheckIcon } from '../icons';
+import { useChecklist } from './checklist-context';
+import { ChoiceField, NumberField, TextField, useFieldValue } from './fields';
+import { Caution, MoreHelp } from './notes';
+
+/** The region line shown once an MPAN core passes its check digit. */
+export function regionLine(region: string): string {
+  return region === INDEPENDENT_NETWORK
+    ? 'Distribution network: an independent network operator'
+    : `Distribution region: ${region}`;
+}
+
+function MpanField() {
+  const { form } = useChecklist();
+  const mpan = useFieldValue('supply.mpanCore');
+  const result = mpan.trim() === '' ? null : checkMpanCore(mpan);
+  return (
+    <TextField
+      path="supply.mpanCore"
+      inputMode="numeric"
+      size="short"
+      placeholder="13 digits"
+      spellCheck={false}
+      // Check as soon as the 13th digit is in, not only on leaving the field.
+      onType={(value) => {
+        if (normaliseMpanCore(value).length >= 13) void form.trigger('supply.mpanCore');
+      }}
+      help="The number that identifies your home’s electricity supply. It is printed on your electricity bill. Spaces are fine."
+      confirmation={
+        result?.ok ? (
+          <p className="flex items-center gap-2 font-semibold text-clear">
+            <CheckIcon className="h-5 w-5" />
+            <span>{regionLine(result.region)}</span>
+          </p>
+        ) : null
+      }
+    >
+      <MoreHelp summary="Where do I find my MPAN?">
+        <p>
+          On your electricity bill, usually on the page with your meter details, look for a box of numbers beside a large letter{' '}
+          <strong>S</strong>. It may be labelled <strong>Supply number</strong> or MPAN.
+        </p>
+        <p>
+          The box has two lines. Copy the <strong>bottom line</strong>: 13 digits, often printed in groups such as 13 1234 5678 907. The
+          top line is not needed.
+        </p>
+        <p>No bill to hand? Your electricity supplier’s app or online account usually shows it too.</p>
+      </MoreHelp>
+    </TextField>
+  );
+}
+
+export function SupplyStep() {
+  return (
+    <div className="space-y-6">
+      <Caution>
+        <p>
+          Never open the cut-out, the meter or the consumer unit, and never remove any cover. Everything here can be read from where you
+          stand. If something looks damaged or scorched, keep away and tell your installer.
+        </p>
+        <p>Only your network operator, or someone working for them, may change the main fuse or the cut-out.</p>
+      </Caution>
+
+      <MpanField />
+
+      <ChoiceField
+        path="supply.mainFuseAmps"
+        columns={3}
+        help="The main fuse sits inside the cut-out. Its rating, in amps (A), is printed on the front of the fuse holder."
+      >
+        <MoreHelp summary="What is the cut-out, and how do I read it safely?">
+          <p>
+            The cut-out is the sealed box where the supply cable comes into your home, usually next to the meter. It is often black or
+            grey, with a small wire seal across it.
+          </p>
+          <p>
+            On its front, or on the part in the middle that holds the fuse, look for a number such as <strong>60</strong>,{' '}
+            <strong>80</strong> or <strong>100</strong>, sometimes followed by A. Read it without touching anything; a torch helps. If
+            there is no number you can see, choose “I can’t read it”.
+          </p>
+        </MoreHelp>
+      </ChoiceField>
+
+      <ChoiceField
+        path="supply.looped"
+        help="Some older homes, often terraces, share one supply cable with next door. Your installer needs to know, as the network operator may have to separate them first."
+      >
+        <MoreHelp summary="How can I tell if it’s looped?">
+          <p>
+            Look, without touching, at the cut-out. If two thick cables leave it, or one runs through the wall towards the house next
+            door, the supply may be looped. If you can’t tell, “I’m not sure” is fine.
+          </p>
+        </MoreHelp>
+      </ChoiceField>
+
+      <TextField
+        path="supply.consumerUnitLocation"
+        multiline
+        help="The consumer unit, often called the fuse box, holds your home’s switches and circuit breakers. For example: “under the stairs” or “garage, back wall”."
+      />
+
+      <ChoiceField
+        path="supply.earthing"
+        help="How your wiring connects to earth, which is part of what keeps you safe. Your electrician will check it; tell us if you already know."
+      >
+        <MoreHelp summary="Where could I see which type I have?">
+          <p>
+            Look near the meter for a label, such as one saying “Protective Multiple Earthing”, and at where the green-and-yellow earth
+            wire goes. An old electrical certificate for the home may also name it (TN-C-S, TN-S or TT). Look only; don’t touch any wires.
+          </p>
+        </MoreHelp>
+      </ChoiceField>
+
+      <fieldset className="space-y-5 rounded-lg border border-ground-100 p-4">
+        <legend className="float-left w-full text-lg font-bold text-ground-900">Big electrical loads already in your home</legend>
+        <p className="field-help clear-both !mt-1 pt-1">
+          These add up with a charger at busy times. Give 0 for anything you don’t have. A rating is usually on a label on the front or
+          underside of the appliance, or in its manual.
+        </p>
+        <NumberField path="supply.loads.showerKw" placeholder="e.g. 9.5" help="An electric shower heats its own water, usually 7 to 10.5 kW." />
+        <ChoiceField path="supply.loads.cooker" columns={2} help="An oven, hob or range that runs on electricity." />
+        <ChoiceField path="supply.loads.immersion" columns={2} help="An electric element that heats a hot-water cylinder." />
+        <NumberField path="supply.loads.heatPumpKw" placeholder="e.g. 5" help="An air- or ground-source heat pump for heating." />
+        <NumberField path="supply.loads.storageHeaters" placeholder="e.g. 6" help="All storage heaters added together, for example three of 2 kW make 6." />
+        <ChoiceField path="supply.loads.otherEvCharger" columns={2} />
+        <ChoiceField path="supply.loads.solarPv" columns={2} />
+      </fieldset>
+    </div>
+  );
+}
