@@ -1,0 +1,78 @@
+// The plan's words: names of ports and parking ways, and the reach verdict as a sentence, so
+// the drawing, the summary and the tests say the same thing.
+import type { CableSource } from '../../lib/readiness/checks/cable-reach';
+import type { CarSizeClass, ReachVerdict } from '../../lib/readiness/plan';
+import type { ChargePort, ParkingWay } from '../../lib/readiness/types';
+import { formatNumber, roundTo } from '../../lib/readiness/units';
+
+/** Port positions as the customer reads them (left and right from the driver's seat). */
+export const portLabels: Record<ChargePort, string> = {
+  'front-left': 'Front left',
+  'front-right': 'Front right',
+  'front-centre': 'Front centre',
+  'rear-left': 'Rear left',
+  'rear-right': 'Rear right',
+  'side-left': 'Left side',
+  'side-right': 'Right side',
+};
+
+export const wayLabels: Record<ParkingWay, string> = { 'nose-in': 'Nose in', 'reverse-in': 'Reversed in' };
+
+// A figure and its unit stay on one line.
+const NBSP = '\u00a0';
+
+const wayPhrases: Record<ParkingWay, string> = { 'nose-in': 'park nose in', 'reverse-in': 'reverse in' };
+
+export const sizeClassLabels: Record<Exclude<CarSizeClass, 'custom'>, string> = {
+  small: 'Small',
+  medium: 'Medium',
+  large: 'Large',
+};
+
+/**
+ * A length for reading: one decimal place, or two when one would hide which side of the cable
+ * length it falls (5.04 m must not read as "5 m" when it does not reach).
+ *
+ * @example metres(5.04, 5) // '5.04'
+ */
+export function metres(value: number, cableMetres: number): string {
+  const rounded = roundTo(value, 1);
+  const misleads = value > cableMetres ? rounded <= cableMetres : rounded > cableMetres;
+  return formatNumber(value, misleads ? 2 : 1);
+}
+
+/**
+ * One parking way's verdict in words, never by colour alone.
+ *
+ * @example verdictSentence({ way: 'nose-in', reaches: true, requiredMetres: 3.2 } as ReachVerdict, 5)
+ * // 'Reaches when you park nose in — 3.2 m of 5 m' (a no-break space before each "m")
+ */
+export function verdictSentence(verdict: Pick<ReachVerdict, 'way' | 'reaches' | 'requiredMetres'>, cableMetres: number): string {
+  const need = metres(verdict.requiredMetres, cableMetres);
+  const way = wayPhrases[verdict.way];
+  return verdict.reaches
+    ? `Reaches when you ${way} — ${need}${NBSP}m of ${formatNumber(cableMetres, 2)}${NBSP}m`
+    : `Doesn’t reach when you ${way} — needs ${need}${NBSP}m`;
+}
+
+/**
+ * What the needed length is made of, for the line under a verdict.
+ *
+ * @example verdictDetail({ reaches: false, planMetres: 5.1, shortByMetres: 1.1 } as ReachVerdict, 1) // '1.1 m more than the cable: 5.1 m on the plan plus 1 m slack.'
+ */
+export function verdictDetail(verdict: Pick<ReachVerdict, 'reaches' | 'planMetres' | 'shortByMetres'>, slackMetres: number): string {
+  const made = `${formatNumber(verdict.planMetres, 1)} m on the plan plus ${formatNumber(slackMetres, 2)} m slack`;
+  return verdict.reaches ? `${made}.` : `${formatNumber(Math.max(verdict.shortByMetres, 0.01), 2)} m more than the cable: ${made}.`;
+}
+
+/**
+ * Which cable is measured, in words.
+ *
+ * @example cableSentence({ metres: 5, source: 'tether' }) // 'Your tethered cable: 5 m.'
+ */
+export function cableSentence(cable: { metres: number; source: CableSource }): string {
+  const length = formatNumber(cable.metres, 2);
+  if (cable.source === 'tether') return `Your tethered cable: ${length} m.`;
+  if (cable.source === 'tether-assumed') return `A tethered cable of ${length} m, the usual length (tell us yours in the charge point step).`;
+  return `Your own charging cable, as the charge point is socketed: we’ve assumed ${length} m.`;
+}
