@@ -3,12 +3,9 @@
 // unit + integration tests (vitest) and the browser tests (vitest + playwright-core, serially).
 // Extra arguments are passed to vitest as file filters: `npm test -- tests/unit/mpan`.
 import { execFileSync, spawnSync } from 'node:child_process';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import {
-  build, ensureNodeModules, freePort, log, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp,
-} from './lib/stack.mjs';
+import { ensureNodeModules, log, root } from './lib/stack.mjs';
+import { startThrowawayStack } from './lib/throwaway-stack.mjs';
 
 ensureNodeModules();
 
@@ -22,51 +19,19 @@ function ensureChromium() {
   return spawnSync('sh', ['-c', 'command -v chromium'], { encoding: 'utf8' }).stdout.trim();
 }
 
-const scratch = mkdtempSync(join(tmpdir(), 'groundwork-test-'));
 const filters = process.argv.slice(2);
-let db;
-let outDir;
+let stack;
+for (const signal of ['SIGINT', 'SIGTERM']) {
+  process.on(signal, async () => {
+    await stack?.stop();
+    process.exit(130);
+  });
+}
 let code = 1;
 try {
   const chromium = ensureChromium();
-  const [pgPort, appPort, smtpPort, mailHttpPort] = [await freePort(), await freePort(), await freePort(), await freePort()];
-  db = await startDatabase({
-    dataDir: join(scratch, 'pg'),
-    fallbackName: `groundwork-test-pg-${process.pid}`,
-    port: pgPort,
-    database: 'groundwork_test',
-    password: 'groundwork-test',
-    durable: false,
-  });
-  await migrate(db.url);
-  const appUrl = `http://127.0.0.1:${appPort}`;
-  const env = {
-    DATABASE_URL: db.url,
-    AUTH_SECRET: 'groundwork-test-secret-not-for-production',
-    AUTH_TRUST_HOST: 'true',
-    APP_URL: appUrl,
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: String(smtpPort),
-    UPLOAD_DIR: join(scratch, 'uploads'),
-    DEMO_PASSWORD: 'groundwork-demo',
-    HOST: '127.0.0.1',
-    PORT: String(appPort),
-    GROUNDWORK_TEST: '1',
-    // Tests drive reminder sweeps themselves; the background schedule stays out of their way.
-    REMINDER_SWEEP_CRON: '0 4 1 1 *',
-  };
-  runTsx('seeds/run.ts', env);
-  startChild('fake mail', 'node', ['fake-services/mail-server.mjs'], {
-    env: { FAKE_SMTP_PORT: String(smtpPort), FAKE_MAIL_HTTP_PORT: String(mailHttpPort) },
-    quiet: true,
-  });
-  outDir = `.data/test-build-${process.pid}`;
-  const entry = build(outDir, env);
-  env.APP_ENTRY = entry;
-  startChild('app', 'node', [entry], { env, quiet: true });
-  startChild('worker', join(root, 'node_modules', '.bin', 'tsx'), ['scripts/worker.ts'], { env, quiet: true });
-  await waitForHttp(`${appUrl}/api/health`);
-  const testEnv = { ...process.env, ...env, MAIL_API_URL: `http://127.0.0.1:${mailHttpPort}`, CHROMIUM_PATH: chromium };
+  stack = await startThrowawayStack({ name: 'test' });
+  const testEnv = { ...process.env, ...stack.env, CHROMIUM_PATH: chromium };
   const vitest = join(root, 'node_modules', '.bin', 'vitest');
   const unitFilters = filters.filter((f) => !f.includes('e2e'));
   const e2eFilters = filters.filter((f) => f.includes('e2e'));
@@ -87,11 +52,7 @@ try {
   console.error(err instanceof Error ? err.stack : err);
   code = 1;
 } finally {
-  await stopChildren();
-  db?.stop();
-  rmSync(scratch, { recursive: true, force: true });
-  if (outDir) rmSync(join(root, outDir), { recursive: true, force: true });
-  if (db?.dataDir && !db.dataDir.startsWith(scratch)) rmSync(db.dataDir, { recursive: true, force: true });
+  await stack?.stop();
 }
 log(code === 0 ? 'All tests passed.' : 'Some tests failed.');
 process.exit(code);

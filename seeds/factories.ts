@@ -3,6 +3,7 @@ import bcrypt from 'bcryptjs';
 import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import { auditLog, cases, users, type Role, type Stage } from '../src/db/schema';
 import { newCaseReference } from '../src/lib/case-reference';
+import { refreshSearchTextSql } from '../src/db/search-text';
 import { runChecks, type ChecklistAnswers } from '../src/lib/readiness';
 
 const rank = { red: 0, amber: 1, green: 2 } as const;
@@ -66,6 +67,7 @@ export async function createCase(db: Db, input: CaseInput) {
           ...readinessColumns(input.checklist ?? {}),
         })
         .returning();
+      await db.execute(refreshSearchTextSql(row!.id));
       await db.insert(auditLog).values({ caseId: row!.id, action: 'case.created', entity: 'case', entityId: row!.id, after: { stage: row!.stage } });
       return row!;
     } catch (err) {

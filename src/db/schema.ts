@@ -123,6 +123,9 @@ export const cases = pgTable(
     readinessChecks: jsonb('readiness_checks').notNull().default([]),
     readinessAt: timestamp('readiness_at', { withTimezone: true }),
     remindersSent: integer('reminders_sent').notNull().default(0),
+    // Lower-cased (so LIKE, cheaper than ILIKE, will do) customer name, e-mail, postcode without spaces, reference and MPAN: one
+    // trigram-indexed column, so the office's search is one indexed ILIKE, not an OR over a join.
+    searchText: text('search_text').notNull().default(''),
     lastChasedAt: timestamp('last_chased_at', { withTimezone: true }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
@@ -240,3 +243,20 @@ export const emailLog = pgTable(
 );
 
 export type Light = (typeof lightEnum.enumValues)[number];
+
+export const surveyOutcomeEnum = pgEnum('survey_outcome', ['go_ahead', 'go_ahead_with_changes', 'cannot_install']);
+
+/** What the surveyor found on site: one record per case, its confirmed values feed the checks. */
+export const surveyOutcomes = pgTable('survey_outcomes', {
+  caseId: uuid('case_id')
+    .primaryKey()
+    .references(() => cases.id, { onDelete: 'cascade' }),
+  outcome: surveyOutcomeEnum('outcome').notNull(),
+  confirmedEarthing: text('confirmed_earthing'),
+  confirmedFuseAmps: integer('confirmed_fuse_amps'),
+  // Measured or noted values, e.g. { zeOhms: 0.21, cableRunMetres: 14, pfcKa: 1.6 }.
+  measurements: jsonb('measurements').notNull().default({}),
+  notes: text('notes'),
+  surveyorId: text('surveyor_id').references(() => users.id, { onDelete: 'set null' }),
+  recordedAt: timestamp('recorded_at', { withTimezone: true }).notNull().defaultNow(),
+});

@@ -4,11 +4,11 @@ import { alias } from 'drizzle-orm/pg-core';
 import { cases, users } from '../../db/schema';
 import type { QueueItem, QueueQuery, QueueSortKey } from '../schemas/queue';
 import { db } from './db.server';
+import { searchPattern } from '../../db/search-text';
 import type { SessionUser } from './users.server';
 
 const surveyors = alias(users, 'surveyor');
 const deliveryDate = sql<string | null>`(${cases.checklist} -> 'vehicle' ->> 'deliveryDate')`;
-const mpan = sql`(${cases.checklist} -> 'supply' ->> 'mpanCore')`;
 
 const sortColumns: Record<QueueSortKey, SQL | ReturnType<typeof sql>> = {
   customer: sql`lower(${users.name})`,
@@ -35,15 +35,12 @@ function where(user: SessionUser, q: QueueQuery): SQL | undefined {
     parts.push(sql`${deliveryDate} <= to_char((now() at time zone 'Europe/London')::date + ${q.deliveryWithin}::int, 'YYYY-MM-DD')`);
   }
   if (q.q) {
-    const term = `%${q.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
-    const digits = q.q.replace(/\s/g, '');
+    // The postcode sits in search_text without its space, so try the term both ways.
+    const squeezed = q.q.replace(/\s+/g, '');
     parts.push(
       or(
-        sql`${users.name} ilike ${term}`,
-        sql`${users.email} ilike ${term}`,
-        sql`replace(${cases.postcode}, ' ', '') ilike ${`%${digits.replace(/[\\%_]/g, (c) => `\\${c}`)}%`}`,
-        sql`${cases.reference} ilike ${term}`,
-        /^\d{4,13}$/.test(digits) ? sql`${mpan} like ${`${digits}%`}` : undefined,
+        sql`${cases.searchText} like ${searchPattern(q.q)}`,
+        squeezed !== q.q ? sql`${cases.searchText} like ${searchPattern(squeezed)}` : undefined,
       ),
     );
   }
@@ -69,9 +66,10 @@ const columns = {
   surveyorId: cases.surveyorId,
   surveyorName: surveyors.name,
   surveyDate: cases.surveyDate,
+  total: sql<number>`count(*) over ()`,
 };
 
-type Row = { [K in keyof typeof columns]: unknown };
+type Row = { [K in Exclude<keyof typeof columns, 'total'>]: unknown };
 
 function toItem(r: Row): QueueItem {
   const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : (d as string | null));
@@ -88,19 +86,23 @@ export async function queuePage(user: SessionUser, q: QueueQuery): Promise<{ ite
   const sortKey = sortColumns[q.sort];
   const base = () =>
     db().select(columns).from(cases).innerJoin(users, eq(users.id, cases.customerId)).leftJoin(surveyors, eq(surveyors.id, cases.surveyorId)).where(filter);
-  const [rows, [count]] = await Promise.all([
-    base()
-      .orderBy(sql`${order(sortKey as SQL)} nulls last`, desc(cases.invitedAt), asc(cases.id))
-      .limit(q.pageSize)
-      .offset((q.page - 1) * q.pageSize),
-    db()
+  // One round trip: the total rides along on every row as a window count.
+  const rows = await base()
+    .orderBy(sql`${order(sortKey as SQL)} nulls last`, desc(cases.invitedAt), asc(cases.id))
+    .limit(q.pageSize)
+    .offset((q.page - 1) * q.pageSize);
+  let total = rows[0] ? Number(rows[0].total) : 0;
+  if (rows.length === 0 && q.page > 1) {
+    // Past the last page there is no row to carry the total: count separately.
+    const [count] = await db()
       .select({ n: sql<number>`count(*)::int` })
       .from(cases)
       .innerJoin(users, eq(users.id, cases.customerId))
       .leftJoin(surveyors, eq(surveyors.id, cases.surveyorId))
-      .where(filter),
-  ]);
-  return { items: rows.map(toItem), total: count?.n ?? 0, page: q.page, pageSize: q.pageSize };
+      .where(filter);
+    total = count?.n ?? 0;
+  }
+  return { items: rows.map(({ total: _t, ...r }) => toItem(r)), total, page: q.page, pageSize: q.pageSize };
 }
 
 /** Every matching row for the CSV export, streamed a page at a time. */
