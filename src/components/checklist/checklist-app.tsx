@@ -301,11 +301,11 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
               <p className="mb-6 text-ground-800">{step === 'review' && sent ? 'Your answers are with your installer. You can still fill a gap or correct an answer.' : intros[step]}</p>
               <form onSubmit={(e) => e.preventDefault()} noValidate>
                 <fieldset disabled={!view.editable} className="min-w-0">
-                  {step === 'about' && <AboutStep />}
-                  {step === 'vehicle' && <VehicleStep />}
-                  {step === 'supply' && <SupplyStep />}
-                  {step === 'parking' && <ParkingStep />}
-                  {step === 'charger' && <ChargerStep />}
+                  {step === 'about' && <AboutStep caseId={view.id} />}
+                  {step === 'vehicle' && <VehicleStep caseId={view.id} />}
+                  {step === 'supply' && <SupplyStep caseId={view.id} />}
+                  {step === 'parking' && <ParkingStep caseId={view.id} />}
+                  {step === 'charger' && <ChargerStep caseId={view.id} />}
                 </fieldset>
                 {step === 'review' && (
                   <ReviewStep

@@ -16,7 +16,7 @@ export function tidyPostcode(value: string): string {
   return result.ok ? result.postcode : value;
 }
 
-export function AboutStep() {
+export function AboutStep({ caseId: _caseId }: { caseId: string }) {
   const tenure = useFieldValue('about.tenure');
   const propertyType = useFieldValue('about.propertyType');
   return (

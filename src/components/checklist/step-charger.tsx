@@ -2,7 +2,7 @@
 import { ChoiceField, NumberField, TextField, useFieldValue } from './fields';
 import { MoreHelp, Note } from './notes';
 
-export function ChargerStep() {
+export function ChargerStep({ caseId }: { caseId: string }) {
   const softGround = useFieldValue('charger.softGround');
   const preference = useFieldValue('charger.preference');
   return (
@@ -42,6 +42,16 @@ export function ChargerStep() {
       {preference === 'tethered' && (
         <NumberField path="charger.tetherMetres" placeholder="e.g. 5" help="Most attached cables are about 5 m. Longer ones, such as 7.5 m or 10 m, are available." />
       )}
+      <div className="rounded-lg border border-ground-200 bg-ground-50 p-4" data-testid="plan-link">
+        <p className="font-bold text-ground-900">Will the cable reach the car?</p>
+        <p className="mt-1 text-ground-800">
+          Sketch your drive to scale — the wall, where the car parks and where the charge point goes — and we’ll show whether the cable
+          reaches the car’s charging socket whichever way you park. No drawing skills needed.
+        </p>
+        <a href={`/my/cases/${caseId}/plan`} className="btn-secondary mt-3">
+          Draw my driveway
+        </a>
+      </div>
       <Note>
         <p className="font-semibold text-ground-900">Your electrician has the final say</p>
         <p>

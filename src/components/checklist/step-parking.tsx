@@ -2,7 +2,7 @@
 import { ChoiceField, NumberField, useFieldValue } from './fields';
 import { Note } from './notes';
 
-export function ParkingStep() {
+export function ParkingStep({ caseId: _caseId }: { caseId: string }) {
   const kind = useFieldValue('parking.kind');
   return (
     <div className="space-y-6">

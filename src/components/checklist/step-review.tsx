@@ -9,6 +9,7 @@ import { fieldId } from './checklist-context';
 import { fieldByPath } from './field-defs';
 import { gapWords, stepHash, summaryRows } from './progress';
 import { Note } from './notes';
+import CustomerReadiness from '../readiness/customer-readiness';
 
 type Props = {
   caseId: string;
@@ -181,6 +182,8 @@ export function ReviewStep({ caseId, view, checklist, progress, blocked, saveAll
           </p>
         </Note>
       )}
+
+      <CustomerReadiness caseId={caseId} version={view.version} />
 
       {progress.map((section) => {
         const rows = summaryRows(section.id, checklist);

@@ -52,7 +52,7 @@ function MpanField() {
   );
 }
 
-export function SupplyStep() {
+export function SupplyStep({ caseId: _caseId }: { caseId: string }) {
   return (
     <div className="space-y-6">
       <Caution>

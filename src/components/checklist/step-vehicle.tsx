@@ -29,7 +29,7 @@ function vehicleWarning(field: 'registration' | 'vin', value: string): string | 
   return fieldWarnings({ vehicle: { [field]: field === 'vin' ? normaliseVin(value) : value } })[`vehicle.${field}`] ?? null;
 }
 
-export function VehicleStep() {
+export function VehicleStep({ caseId: _caseId }: { caseId: string }) {
   const { form } = useChecklist();
   const registration = useFieldValue('vehicle.registration');
   const vin = useFieldValue('vehicle.vin');

@@ -42,6 +42,8 @@ const baySchema = z.object({
   angle: z.union([z.literal(0), z.literal(90)]),
   entry: z.enum(['left', 'right']).nullish(),
   forEv: z.boolean().nullish(),
+  // What the customer called the space; the geometry does not depend on it.
+  kind: z.enum(['driveway', 'garage']).nullish(),
 });
 
 /** lengthM / widthM (body, mirrors folded) override the size class's defaults when given. */
