@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
+import { StopIcon } from './icons';
 import {
   linkSignInSchema,
   passwordSignInSchema,
@@ -27,9 +28,9 @@ async function authPost(path: string, fields: Record<string, string>): Promise<{
 
 function ErrorBox({ message }: { message: string }) {
   return (
-    <div role="alert" className="mb-4 rounded-md border border-blocked/30 bg-blocked-soft p-3 text-blocked">
-      <span aria-hidden="true">⛔ </span>
-      {message}
+    <div role="alert" className="mb-4 flex items-start gap-2 rounded-md border border-blocked/30 bg-blocked-soft p-3 text-blocked">
+      <StopIcon className="mt-0.5 h-5 w-5 shrink-0" />
+      <span>{message}</span>
     </div>
   );
 }
