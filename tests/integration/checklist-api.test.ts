@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from 'vitest';
-import { and, eq } from 'drizzle-orm';
+import { and, asc, eq } from 'drizzle-orm';
 import { Client } from '../helpers/http';
 import { db, schema } from '../helpers/db';
 import { messagesTo, waitForMessage } from '../helpers/mail';
@@ -176,7 +176,8 @@ describe('PATCH /api/cases/:id/checklist', () => {
     const entries = await db
       .select()
       .from(schema.auditLog)
-      .where(and(eq(schema.auditLog.caseId, c.case!.id), eq(schema.auditLog.action, 'checklist.updated')));
+      .where(and(eq(schema.auditLog.caseId, c.case!.id), eq(schema.auditLog.action, 'checklist.updated')))
+      .orderBy(asc(schema.auditLog.id));
     const last = entries.at(-1)!;
     expect(last.actorId).toBe(c.user.id);
     expect(last.after).toEqual({ 'parking.kind': 'garage', 'parking.cars': 2 });
