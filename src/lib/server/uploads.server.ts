@@ -33,6 +33,7 @@ import { findVisibleCase } from './cases.server';
 import { config } from './config.server';
 import { db } from './db.server';
 import { HttpError, notFound } from './http';
+import { refreshReadiness } from './readiness.server';
 import { uploadStorage } from './storage/index.server';
 import type { SessionUser } from './users.server';
 
@@ -400,12 +401,13 @@ async function reencodeImage(input: ScratchFile, type: StoredType): Promise<Prep
   try {
     const image = sharp(input.path, { limitInputPixels: limit, failOn: 'error' }).rotate();
     const encoded =
-      type === 'image/png' ? image.png() : type === 'image/webp' ? image.webp({ quality: 85 }) : image.jpeg({ quality: 85, mozjpeg: true });
+      type === 'image/png' ? image.png() : type === 'image/webp' ? image.webp({ quality: 85 }) : image.jpeg({ quality: 85 });
     const info = await encoded.toFile(main.path);
     await sharp(main.path).resize({ width: uploadLimits.thumbWidth, withoutEnlargement: true }).webp({ quality: 75 }).toFile(thumb.path);
     return { main, thumb, type, width: info.width, height: info.height, bytes: info.size, sha256: await sha256Of(main.path) };
   } catch (err) {
     await Promise.all([main.remove(), thumb.remove()]);
+    if (isDiskError(err)) throw err;
     if (err instanceof Error && /pixel limit/i.test(err.message)) throw refuse.tooManyPixels(Math.round(pixels / 1_000_000));
     throw refuse.undecodable();
   }
@@ -497,7 +499,24 @@ async function prepare(received: Received): Promise<Prepared> {
     await checkPdf(received.file, received.bytes);
     return { main: received.file, thumb: null, type: received.type, width: null, height: null, bytes: received.bytes, sha256: received.sha256 };
   }
-  return reencodeImage(received.file, received.type);
+  return inImageSlot(() => reencodeImage(received.file, received.type));
+}
+
+// A 40-megapixel decode takes ~120 MB; two at a time bounds memory when many arrive at once.
+const IMAGE_SLOTS = 2;
+let busySlots = 0;
+const waitingForSlot: Array<() => void> = [];
+
+async function inImageSlot<T>(work: () => Promise<T>): Promise<T> {
+  if (busySlots >= IMAGE_SLOTS) await new Promise<void>((r) => waitingForSlot.push(r));
+  else busySlots++;
+  try {
+    return await work();
+  } finally {
+    const next = waitingForSlot.shift();
+    if (next) next();
+    else busySlots--;
+  }
 }
 
 /** Commits the row (with its audit entry), then moves the files into storage; undoes the row if that fails. */
@@ -531,6 +550,8 @@ async function keep(user: SessionUser, caseRow: CaseRow, kind: UploadKind, origi
     if (user.role === 'customer') {
       await tx.update(cases).set({ lastCustomerActivityAt: new Date() }).where(eq(cases.id, caseRow.id));
     }
+    // The documents check counts this file, so the stored light moves with it.
+    await refreshReadiness(caseRow.id, tx);
     return inserted!;
   });
   const storage = uploadStorage();
@@ -542,6 +563,7 @@ async function keep(user: SessionUser, caseRow: CaseRow, kind: UploadKind, origi
     await db().transaction(async (tx) => {
       await tx.delete(uploads).where(eq(uploads.id, id));
       await audit({ caseId: caseRow.id, actorId: user.id, action: 'upload.discarded', entity: 'upload', entityId: id, before: auditView(row) }, tx);
+      await refreshReadiness(caseRow.id, tx);
     });
     throw err;
   }
@@ -633,6 +655,7 @@ export async function deleteUpload(user: SessionUser, row: UploadRow, caseRow: C
     if (!gone) return undefined;
     await audit({ caseId: row.caseId, actorId: user.id, action: 'upload.deleted', entity: 'upload', entityId: row.id, before: auditView(gone) }, tx);
     await tx.update(cases).set({ lastCustomerActivityAt: sql`now()` }).where(eq(cases.id, row.caseId));
+    await refreshReadiness(row.caseId, tx);
     return gone;
   });
   if (!deleted) {
