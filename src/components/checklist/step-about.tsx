@@ -1,4 +1,5 @@
 // Step 1, About you: who to contact and the home where the charge point goes.
+import { StepEvidence } from './step-evidence';
 import { checkPostcode } from '../../lib/validation/postcode';
 import { checkUkPhone } from '../../lib/validation/phone';
 import { ChoiceField, TextField, useFieldValue } from './fields';
@@ -16,7 +17,7 @@ export function tidyPostcode(value: string): string {
   return result.ok ? result.postcode : value;
 }
 
-export function AboutStep({ caseId: _caseId }: { caseId: string }) {
+export function AboutStep({ caseId }: { caseId: string }) {
   const tenure = useFieldValue('about.tenure');
   const propertyType = useFieldValue('about.propertyType');
   return (
@@ -72,6 +73,7 @@ export function AboutStep({ caseId: _caseId }: { caseId: string }) {
           </p>
         </Note>
       )}
+      {tenure === 'tenant' && <StepEvidence caseId={caseId} kinds={['landlord_permission']} heading="Your landlord’s permission" />}
     </div>
   );
 }

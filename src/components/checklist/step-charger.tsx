@@ -1,4 +1,5 @@
 // Step 5, Charge point and cable route: where it goes, how the cable gets there, which kind.
+import { StepEvidence } from './step-evidence';
 import { ChoiceField, NumberField, TextField, useFieldValue } from './fields';
 import { MoreHelp, Note } from './notes';
 
@@ -59,6 +60,7 @@ export function ChargerStep({ caseId }: { caseId: string }) {
           under BS 7671 (the UK wiring regulations), the IET Code of Practice for EV charging, and local building and planning rules.
         </p>
       </Note>
+      <StepEvidence caseId={caseId} kinds={['charger_location_photo']} heading="Photo of the spot" />
     </div>
   );
 }

@@ -1,8 +1,9 @@
 // Step 4, Parking: where the car stands while it charges, and which way round.
+import { StepEvidence } from './step-evidence';
 import { ChoiceField, NumberField, useFieldValue } from './fields';
 import { Note } from './notes';
 
-export function ParkingStep({ caseId: _caseId }: { caseId: string }) {
+export function ParkingStep({ caseId }: { caseId: string }) {
   const kind = useFieldValue('parking.kind');
   return (
     <div className="space-y-6">
@@ -25,6 +26,7 @@ export function ParkingStep({ caseId: _caseId }: { caseId: string }) {
       )}
       <NumberField path="parking.cars" integer placeholder="e.g. 2" help="Include the electric car. This helps us see where it will stand." />
       <ChoiceField path="parking.habit" columns={3} help="Together with where the car’s socket is, this tells us how far the cable must reach." />
+      {kind === 'detached-bay' && <StepEvidence caseId={caseId} kinds={['parking_evidence']} heading="Proof of your parking space" />}
     </div>
   );
 }

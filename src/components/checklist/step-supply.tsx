@@ -1,4 +1,5 @@
 // Step 3, Your supply: the MPAN, the main fuse, earthing and the big loads already in the home.
+import { StepEvidence } from './step-evidence';
 import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore } from '../../lib/validation/mpan';
 import { CheckIcon } from '../icons';
 import { useChecklist } from './checklist-context';
@@ -52,7 +53,7 @@ function MpanField() {
   );
 }
 
-export function SupplyStep({ caseId: _caseId }: { caseId: string }) {
+export function SupplyStep({ caseId }: { caseId: string }) {
   return (
     <div className="space-y-6">
       <Caution>
@@ -127,6 +128,7 @@ export function SupplyStep({ caseId: _caseId }: { caseId: string }) {
         <ChoiceField path="supply.loads.otherEvCharger" columns={2} />
         <ChoiceField path="supply.loads.solarPv" columns={2} />
       </fieldset>
+      <StepEvidence caseId={caseId} kinds={['meter_photo', 'cutout_photo', 'consumer_unit_photo']} heading="Photos of your supply (photos only — never open anything)" />
     </div>
   );
 }

@@ -1,4 +1,5 @@
 // Step 2, Your vehicle: which car, when it comes, its plug and where its socket is.
+import { StepEvidence } from './step-evidence';
 import { useState } from 'react';
 import { fieldWarnings } from '../../lib/schemas/checklist';
 import { checkRegistration } from '../../lib/validation/registration';
@@ -29,7 +30,8 @@ function vehicleWarning(field: 'registration' | 'vin', value: string): string | 
   return fieldWarnings({ vehicle: { [field]: field === 'vin' ? normaliseVin(value) : value } })[`vehicle.${field}`] ?? null;
 }
 
-export function VehicleStep({ caseId: _caseId }: { caseId: string }) {
+export function VehicleStep({ caseId }: { caseId: string }) {
+  const condition = useFieldValue('vehicle.condition');
   const { form } = useChecklist();
   const registration = useFieldValue('vehicle.registration');
   const vin = useFieldValue('vehicle.vin');
@@ -105,6 +107,7 @@ export function VehicleStep({ caseId: _caseId }: { caseId: string }) {
         help="Left and right as you sit in the driver’s seat. This decides whether a cable reaches the car where you park."
         aside={<ChargePortPicture position={chargePort} />}
       />
+      {condition === 'new' && <StepEvidence caseId={caseId} kinds={['order_agreement']} heading="Order agreement" />}
     </div>
   );
 }
