@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { StopIcon } from './icons';
@@ -40,6 +40,9 @@ export default function SignInForm({ initialError, callbackUrl = '/home' }: Prop
   const [error, setError] = useState<string | null>(initialError ? (signInErrorMessages[initialError] ?? signInErrorMessages.Configuration) : null);
   const link = useForm<LinkSignIn>({ resolver: zodResolver(linkSignInSchema) });
   const password = useForm<PasswordSignIn>({ resolver: zodResolver(passwordSignInSchema) });
+  // Marks the form as interactive, so tests (and nothing else) can wait for hydration.
+  const [ready, setReady] = useState(false);
+  useEffect(() => setReady(true), []);
 
   const sendLink = link.handleSubmit(async ({ email }) => {
     setError(null);
@@ -72,14 +75,14 @@ export default function SignInForm({ initialError, callbackUrl = '/home' }: Prop
   );
 
   return (
-    <div className="card">
+    <div className="card" data-ready={ready ? 'true' : 'false'}>
       <div role="tablist" aria-label="Who is signing in" className="mb-5 flex gap-1 rounded-lg bg-ground-100 p-1">
         {tab('customer', 'I’m a customer')}
         {tab('staff', 'Installer staff')}
       </div>
       {error && <ErrorBox message={error} />}
       {mode === 'customer' ? (
-        <form id="panel-customer" role="tabpanel" aria-labelledby="tab-customer" onSubmit={sendLink} noValidate>
+        <form id="panel-customer" role="tabpanel" aria-labelledby="tab-customer" method="post" onSubmit={sendLink} noValidate>
           <p className="mb-4 text-ground-800">
             Enter the e-mail address your installer invited. We’ll send you a link that signs you in — no password to remember.
           </p>
@@ -100,7 +103,7 @@ export default function SignInForm({ initialError, callbackUrl = '/home' }: Prop
           </button>
         </form>
       ) : (
-        <form id="panel-staff" role="tabpanel" aria-labelledby="tab-staff" onSubmit={signInStaff} noValidate>
+        <form id="panel-staff" role="tabpanel" aria-labelledby="tab-staff" method="post" onSubmit={signInStaff} noValidate>
           <label htmlFor="staff-email" className="field-label">E-mail address</label>
           <input
             id="staff-email"

@@ -15,6 +15,7 @@ type Customer = Awaited<ReturnType<typeof createUser>>;
 /** Signs a customer in the way a real one does: ask for a link, follow it from the inbox. */
 async function signIn(page: Page, user: Customer, nth = 1) {
   await page.goto('/signin');
+  await page.locator('[data-ready="true"]').waitFor();
   await page.getByLabel('E-mail address').fill(user.email);
   await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
   await page.getByTestId('check-email').waitFor();

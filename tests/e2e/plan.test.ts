@@ -29,6 +29,7 @@ afterAll(close);
 
 async function signInByLink(page: Page, email: string) {
   await page.goto('/signin');
+  await page.locator('[data-ready="true"]').waitFor();
   await page.getByLabel('E-mail address').fill(email);
   await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
   await page.getByTestId('check-email').waitFor();
@@ -69,8 +70,12 @@ describe('the driveway plan, in Chromium', () => {
     await expect(page.getByTestId('plan-save-status').getAttribute('data-status')).resolves.toBe('unsaved');
 
     // Keyboard: Shift+→ moves the picked item 0.5 m; four presses take it from 3 m to 5 m.
-    await page.getByRole('button', { name: /^Charge point, 3 metres from the left corner/ }).focus();
-    for (let i = 0; i < 4; i += 1) await page.keyboard.press('Shift+ArrowRight');
+    for (let i = 1; i <= 4; i += 1) {
+      // One press at a time, waiting for the move to land, so a re-render cannot swallow a key.
+      await page.getByRole('button', { name: /^Charge point, [\d.]+ metres from the left corner/ }).focus();
+      await page.keyboard.press('Shift+ArrowRight');
+      await expect.poll(() => from.inputValue()).toBe(String(3 + 0.5 * i));
+    }
     await expect(from.inputValue()).resolves.toBe('5');
     await expect(verdictText(page, 'nose-in')).resolves.toContain('Reaches when you park nose in — 4.8 m of 5 m');
     await expect(verdictLocator(page, 'nose-in').getAttribute('data-reaches')).resolves.toBe('true');

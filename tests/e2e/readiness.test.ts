@@ -12,6 +12,7 @@ const noLoads = { cooker: false, immersion: false, heatPumpKw: 0, storageHeaters
 
 async function signIn(page: Page, email: string) {
   await page.goto('/signin');
+  await page.locator('[data-ready="true"]').waitFor();
   await page.getByLabel('E-mail address').fill(email);
   await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
   await page.getByTestId('check-email').waitFor();

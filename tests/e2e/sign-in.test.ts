@@ -15,6 +15,7 @@ describe('signing in, in Chromium', () => {
     await page.goto('/');
     await snap(page, 'landing-390');
     await page.getByRole('link', { name: 'Sign in to start' }).click();
+    await page.locator('[data-ready="true"]').waitFor();
     await page.getByLabel('E-mail address').fill(user.email);
     await snap(page, 'signin-390');
     await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
@@ -32,6 +33,7 @@ describe('signing in, in Chromium', () => {
   it('a staff member sees a clear error for a wrong password, then signs in', async () => {
     const { page, context } = await newPage(DESKTOP);
     await page.goto('/signin');
+  await page.locator('[data-ready="true"]').waitFor();
     await page.getByRole('tab', { name: 'Installer staff' }).click();
     await page.getByLabel('E-mail address').fill('admin@example.com');
     await page.getByLabel('Password').fill('not the password');
@@ -49,6 +51,7 @@ describe('signing in, in Chromium', () => {
   it('a validation message shows before anything is sent', async () => {
     const { page, context } = await newPage(PHONE);
     await page.goto('/signin');
+  await page.locator('[data-ready="true"]').waitFor();
     await page.getByLabel('E-mail address').fill('not-an-email');
     await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
     await expect(page.getByText('Enter an e-mail address like name@example.com.').count()).resolves.toBe(1);

@@ -13,6 +13,7 @@ afterAll(close);
 
 async function signInByLink(page: Page, email: string) {
   await page.goto('/signin');
+  await page.locator('[data-ready="true"]').waitFor();
   await page.getByLabel('E-mail address').fill(email);
   await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
   await page.getByTestId('check-email').waitFor();
