@@ -1,0 +1,74 @@
+// The customer's answers, grouped as the checklist groups them, with what is still missing.
+import { sectionIds, type Checklist, type SectionId, type SectionProgress } from '../../lib/schemas/checklist';
+import { summaryRows } from '../checklist/progress';
+import { CheckIcon, WarningIcon } from '../icons';
+import { staffLabel } from './answer-labels';
+
+type Props = { checklist: Checklist; progress: SectionProgress[]; warnings: Record<string, string> };
+
+function planSummary(checklist: Checklist): string | null {
+  const plan = checklist.charger?.plan as { bays?: unknown[] } | null | undefined;
+  if (!plan) return null;
+  const bays = Array.isArray(plan.bays) ? plan.bays.length : 0;
+  return `Drawn (${bays} ${bays === 1 ? 'bay' : 'bays'}) — see the cable reach check`;
+}
+
+function Section({ id, title, checklist, progress, warnings }: { id: SectionId; title: string; checklist: Checklist; progress?: SectionProgress; warnings: Record<string, string> }) {
+  const rows = summaryRows(id, checklist);
+  const answered = rows.filter((r) => r.value !== null);
+  // Unanswered fields are listed on one line, so a half-filled case stays short to read.
+  const missing = new Set((progress?.missing ?? []).map((m) => `${id}.${m}`));
+  const gaps = rows.filter((r) => r.value === null && missing.has(r.def.path)).map((r) => staffLabel(r.def.path));
+  const optional = rows.filter((r) => r.value === null && !missing.has(r.def.path)).map((r) => staffLabel(r.def.path));
+  const plan = id === 'charger' ? planSummary(checklist) : null;
+  return (
+    <div className="py-3" data-testid={`answers-${id}`}>
+      <h3 className="mb-1 flex items-center gap-2 font-bold text-ground-900">
+        {title}
+        {progress?.complete ? (
+          <span className="inline-flex items-center gap-1 text-sm font-semibold text-clear"><CheckIcon className="h-4 w-4" />Complete</span>
+        ) : (
+          <span className="inline-flex items-center gap-1 text-sm font-semibold text-attention"><WarningIcon className="h-4 w-4" />{progress?.missing.length ?? 0} missing</span>
+        )}
+      </h3>
+      {(answered.length > 0 || plan) && (
+        <dl className="grid grid-cols-1 gap-x-6 text-sm sm:grid-cols-[12rem_1fr]">
+          {answered.map(({ def, value }) => (
+            <div key={def.path} className="contents">
+              <dt className="pt-1 text-ground-700">{staffLabel(def.path)}</dt>
+              <dd className="pb-1 font-semibold text-ink sm:pt-1">
+                {value}
+                {warnings[def.path] && (
+                  <span className="mt-0.5 flex items-start gap-1 text-xs font-normal text-attention"><WarningIcon className="h-3.5 w-3.5" />{warnings[def.path]}</span>
+                )}
+              </dd>
+            </div>
+          ))}
+          {plan && (
+            <div className="contents">
+              <dt className="pt-1 text-ground-700">{staffLabel('charger.plan')}</dt>
+              <dd className="pb-1 font-semibold sm:pt-1">{plan}</dd>
+            </div>
+          )}
+        </dl>
+      )}
+      {gaps.length > 0 && (
+        <p className="mt-1 text-sm"><span className="font-semibold text-attention">Not answered yet:</span> {gaps.join(', ')}</p>
+      )}
+      {optional.length > 0 && <p className="mt-0.5 text-xs text-ground-600">Left blank (optional or not yet relevant): {optional.join(', ')}</p>}
+    </div>
+  );
+}
+
+export function CaseAnswers({ checklist, progress, warnings }: Props) {
+  return (
+    <section aria-labelledby="answers-heading" className="card" id="answers">
+      <h2 id="answers-heading" className="text-lg font-bold text-ground-900">Answers</h2>
+      <div className="divide-y divide-ground-100">
+        {sectionIds.map(([id, title]) => (
+          <Section key={id} id={id} title={title} checklist={checklist} progress={progress.find((p) => p.id === id)} warnings={warnings} />
+        ))}
+      </div>
+    </section>
+  );
+}

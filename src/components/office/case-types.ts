@@ -1,0 +1,49 @@
+// The client's copies of the case API's shapes (the server's types live in server-only files).
+import type { Checklist, SectionProgress } from '../../lib/schemas/checklist';
+import type { CheckResult, Light } from '../../lib/readiness/types';
+import type { StageId } from '../../lib/stages';
+
+/** GET /api/cases/:id, as staff use it. */
+export type OfficeCaseView = {
+  id: string;
+  reference: string;
+  stage: StageId;
+  version: number;
+  checklist: Checklist;
+  progress: SectionProgress[];
+  warnings: Record<string, string>;
+  region: string | null;
+  address: { addressLine1: string | null; addressLine2: string | null; town: string | null; postcode: string | null };
+  readiness: { light: Light; gapCount: number; checks: CheckResult[]; at: string | null };
+  surveyDate: string | null;
+  submittedAt: string | null;
+  updatedAt: string;
+};
+
+/** GET /api/cases/:id/readiness. */
+export type Readiness = { light: Light; gapCount: number; checks: CheckResult[] };
+
+/** What the page knows about the people on the case, from the server. */
+export type CasePeople = {
+  customer: { name: string | null; email: string; phone: string | null };
+  surveyor: { id: string; name: string | null } | null;
+  invitedAt: string;
+  lastChasedAt: string | null;
+};
+
+export type StaffMember = { id: string; name: string | null; email: string };
+
+export type NoteItem = { id: string; body: string; createdAt: string; authorName: string | null };
+export type AuditItem = {
+  id: number;
+  action: string;
+  entity: string;
+  entityId: string | null;
+  before: Record<string, unknown> | null;
+  after: Record<string, unknown> | null;
+  at: string;
+  actorId: string | null;
+  actorName: string | null;
+  actorRole: string | null;
+};
+export type EmailItem = { id: string; kind: string; toEmail: string; subject: string; text: string; createdAt: string; sentByName: string | null };

@@ -1,0 +1,314 @@
+// What each readiness check computed, laid out the way the trade reads it: the demand working,
+// the voltage-drop table by cable size, the network-operator route, the cable reach per way of
+// parking; anything else as labelled figures.
+import type { ReactNode } from 'react';
+import type { CheckResult } from '../../lib/readiness/types';
+import { uploadKindInfo, type UploadKind } from '../../lib/schemas/uploads';
+import { CheckIcon, StopIcon } from '../icons';
+import { formatDay, formatNumber } from './format';
+
+type Figures = Record<string, unknown>;
+
+const num = (v: unknown): number | null => (typeof v === 'number' && Number.isFinite(v) ? v : null);
+const amps = (v: unknown) => (num(v) === null ? '—' : `${formatNumber(num(v)!)} A`);
+const metres = (v: unknown) => (num(v) === null ? '—' : `${formatNumber(num(v)!)} m`);
+
+export function FigureList({ rows }: { rows: [string, ReactNode][] }) {
+  return (
+    <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-0.5 text-sm sm:grid-cols-[auto_1fr_auto_1fr]">
+      {rows.map(([k, v]) => (
+        <div key={k} className="contents">
+          <dt className="text-ground-700">{k}</dt>
+          <dd className="font-semibold tabular-nums text-ink">{v}</dd>
+        </div>
+      ))}
+    </dl>
+  );
+}
+
+function MiniTable({ caption, head, rows, highlight }: { caption: string; head: string[]; rows: ReactNode[][]; highlight?: number }) {
+  return (
+    <div className="mt-2 overflow-x-auto">
+      <table className="w-full min-w-[28rem] text-left text-sm tabular-nums">
+        <caption className="mb-1 text-left text-xs font-semibold uppercase tracking-wide text-ground-600">{caption}</caption>
+        <thead className="border-b border-ground-200 text-ground-700">
+          <tr>{head.map((h) => <th key={h} scope="col" className="px-2 py-1 font-semibold">{h}</th>)}</tr>
+        </thead>
+        <tbody>
+          {rows.map((r, i) => (
+            <tr key={i} className={`border-b border-ground-50 ${highlight === i ? 'bg-clear-soft font-semibold' : ''}`}>
+              {r.map((c, j) => <td key={j} className="px-2 py-1">{c}</td>)}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function PassWord({ ok, yes = 'Passes', no = 'Fails' }: { ok: boolean; yes?: string; no?: string }) {
+  return ok ? (
+    <span className="inline-flex items-center gap-1 text-clear"><CheckIcon className="h-4 w-4" />{yes}</span>
+  ) : (
+    <span className="inline-flex items-center gap-1 text-blocked"><StopIcon className="h-4 w-4" />{no}</span>
+  );
+}
+
+type DemandItem = { load: string; declared: string; allowanceAmps: number; rule: string };
+
+function SupplyHeadroom({ f }: { f: Figures }) {
+  const items = (Array.isArray(f.items) ? f.items : []) as DemandItem[];
+  const byRating = f.headroomByRating && typeof f.headroomByRating === 'object' ? (f.headroomByRating as Record<string, number>) : null;
+  return (
+    <>
+      <FigureList
+        rows={[
+          ['Existing demand after diversity', amps(f.existingDemandAmps)],
+          ['Charger, no diversity', amps(f.chargerAmps)],
+          ['Assessed maximum demand', amps(f.assessedDemandAmps)],
+          ['Main fuse (cut-out)', f.fuseAmps === null ? 'Not known' : amps(f.fuseAmps)],
+          ['Headroom', f.headroomAmps === null ? '—' : amps(f.headroomAmps)],
+          ['Comfortable margin', amps(f.marginAmps)],
+          ['Loads declared', f.loadsDeclared ? 'Yes' : 'No — assumed none'],
+        ]}
+      />
+      {byRating && (
+        <MiniTable caption="Headroom at each cut-out rating" head={['Cut-out rating', 'Headroom']} rows={Object.entries(byRating).map(([r, h]) => [`${r} A`, <span className={h < 0 ? 'text-blocked' : ''}>{amps(h)}</span>])} />
+      )}
+      {items.length > 0 && (
+        <MiniTable
+          caption="Maximum demand working"
+          head={['Load', 'Declared', 'Allowance', 'Rule']}
+          rows={items.map((i) => [i.load, i.declared, amps(i.allowanceAmps), <span className="text-xs text-ground-700">{i.rule}</span>])}
+        />
+      )}
+    </>
+  );
+}
+
+type SizeRow = { csaMm2: number; mvPerAPerM: number; volts: number; percent: number; capacityAmps?: number; passes?: boolean; passesDrop?: boolean; passesCapacity?: boolean };
+
+function CableRun({ f }: { f: Figures }) {
+  const sizes = (Array.isArray(f.sizes) ? f.sizes : []) as SizeRow[];
+  const ref70 = f.reference70C as { table?: string; sizes?: SizeRow[] } | undefined;
+  const limit = num(f.limitPercent);
+  return (
+    <>
+      <FigureList
+        rows={[
+          ['Design current', amps(f.currentAmps)],
+          ['Run length', metres(f.lengthMetres)],
+          ['Route', typeof f.route === 'string' ? routeWords[f.route] ?? f.route : 'Not given'],
+          ['Voltage-drop limit', limit === null ? '—' : `${formatNumber(limit)}% (${formatNumber(num(f.limitVolts) ?? 0)} V)`],
+          ['Smallest size that passes', num(f.recommendedCsaMm2) === null ? (sizes.length ? 'None of the sizes' : '—') : `${f.recommendedCsaMm2} mm²`],
+          ['Long run over', metres(f.longRunThresholdMetres)],
+        ]}
+      />
+      {sizes.length > 0 && (
+        <MiniTable
+          caption={typeof f.table === 'string' ? f.table : 'Voltage drop by cable size'}
+          head={['Size', 'mV/A/m', 'Drop', 'Drop %', 'Capacity', 'Result']}
+          highlight={sizes.findIndex((s) => s.csaMm2 === f.recommendedCsaMm2)}
+          rows={sizes.map((s) => [
+            `${s.csaMm2} mm²`,
+            formatNumber(s.mvPerAPerM),
+            `${formatNumber(s.volts)} V`,
+            `${formatNumber(s.percent)}%`,
+            s.capacityAmps === undefined ? '—' : `${s.capacityAmps} A`,
+            <PassWord ok={Boolean(s.passes)} no={s.passesDrop === false ? 'Drop too high' : 'Too small'} />,
+          ])}
+        />
+      )}
+      {ref70?.sizes && ref70.sizes.length > 0 && (
+        <details className="mt-2 text-sm">
+          <summary className="cursor-pointer text-ground-700">70 °C thermoplastic comparison (from memory, not used to recommend)</summary>
+          <MiniTable
+            caption={ref70.table ?? 'Table 4D4B'}
+            head={['Size', 'mV/A/m', 'Drop', 'Drop %']}
+            rows={ref70.sizes.map((s) => [`${s.csaMm2} mm²`, formatNumber(s.mvPerAPerM), `${formatNumber(s.volts)} V`, `${formatNumber(s.percent)}%`])}
+          />
+        </details>
+      )}
+    </>
+  );
+}
+
+const routeWords: Record<string, string> = {
+  'through-wall': 'Straight through the wall',
+  'along-wall': 'Along the outside wall',
+  'through-house': 'Through the house',
+  buried: 'Buried',
+};
+
+const networkRouteWords: Record<string, string> = {
+  'notify-after': 'Connect, then notify the network operator',
+  'apply-before': 'Apply to the network operator before installing',
+};
+
+function NetworkOperator({ f }: { f: Figures }) {
+  const reasons = (Array.isArray(f.reasons) ? f.reasons : []) as { code: string; text: string }[];
+  return (
+    <>
+      <FigureList
+        rows={[
+          ['Route', typeof f.route === 'string' ? networkRouteWords[f.route] ?? f.route : '—'],
+          ['Settled', f.settled ? 'Yes' : 'Not yet — answers missing'],
+          ['Assessed maximum demand', amps(f.assessedDemandAmps)],
+          ['Notify-only limit', amps(f.demandLimitAmps)],
+          ['Main fuse (cut-out)', f.fuseAmps === null ? 'Not known' : amps(f.fuseAmps)],
+          ['Lead time allowed', `${num(f.leadTimeDays) ?? 0} days`],
+          ['Notify within', `${num(f.notifyWithinDays) ?? '—'} days of connection`],
+          ['Distribution region', typeof f.region === 'string' ? f.region : 'Not known (no valid MPAN)'],
+        ]}
+      />
+      {reasons.length > 0 && (
+        <div className="mt-2 text-sm">
+          <p className="font-semibold text-ground-800">Why it must apply first</p>
+          <ul className="list-disc pl-5">{reasons.map((r) => <li key={r.code}>{r.text}</li>)}</ul>
+        </div>
+      )}
+    </>
+  );
+}
+
+type Verdict = { bayIndex: number; way: string; planMetres: number; requiredMetres: number; reaches: boolean; shortByMetres: number };
+const cableSourceWords: Record<string, string> = { tether: 'tethered, as given', 'tether-assumed': 'tethered, usual length assumed', 'customer-cable-assumed': 'customer’s own cable, assumed' };
+const wayWords: Record<string, string> = { 'nose-in': 'Nose in', 'reverse-in': 'Reversed in' };
+
+function CableReach({ f }: { f: Figures }) {
+  const verdicts = (Array.isArray(f.verdicts) ? f.verdicts : []) as Verdict[];
+  const car = f.car as { lengthM?: number; widthM?: number } | undefined;
+  return (
+    <>
+      <FigureList
+        rows={[
+          ['Cable', `${metres(f.cableMetres)} (${cableSourceWords[String(f.cableSource)] ?? String(f.cableSource ?? '—')})`],
+          ['Charge port', typeof f.port === 'string' ? f.port.replace('-', ' ') : '—'],
+          ['Parking habit', typeof f.habit === 'string' ? f.habit.replace('-', ' ') : '—'],
+          ['Car size', car?.lengthM ? `${formatNumber(car.lengthM)} × ${formatNumber(car.widthM ?? 0)} m` : '—'],
+          ['Slack allowed', metres(f.slackMetres)],
+        ]}
+      />
+      {verdicts.length > 0 && (
+        <MiniTable
+          caption="Reach for each bay and way of parking"
+          head={['Bay', 'Parked', 'Plan distance', 'Cable needed', 'Result']}
+          rows={verdicts.map((v) => [
+            `Bay ${v.bayIndex + 1}`,
+            wayWords[v.way] ?? v.way,
+            metres(v.planMetres),
+            metres(v.requiredMetres),
+            <PassWord ok={v.reaches} yes="Reaches" no={`Short by ${formatNumber(v.shortByMetres)} m`} />,
+          ])}
+        />
+      )}
+    </>
+  );
+}
+
+function kinds(v: unknown): string {
+  if (!Array.isArray(v) || v.length === 0) return 'None';
+  return v.map((k) => uploadKindInfo[k as UploadKind]?.title ?? String(k)).join(', ');
+}
+
+const docStateWords: Record<string, string> = { accepted: 'Accepted', waiting: 'Waiting for review', rejected: 'Rejected', missing: 'Not sent' };
+
+function Documents({ f }: { f: Figures }) {
+  const required = (Array.isArray(f.required) ? f.required : []) as { kind: UploadKind; state: string; reason: string | null }[];
+  if (required.length === 0) return <FigureList rows={[['Missing', kinds(f.missingKinds)], ['Waiting for review', kinds(f.waitingKinds)], ['Rejected', kinds(f.rejectedKinds)]]} />;
+  return (
+    <MiniTable
+      caption="Required uploads"
+      head={['Upload', 'State', 'Reason given']}
+      rows={required.map((r) => [
+        uploadKindInfo[r.kind]?.title ?? r.kind,
+        r.state === 'accepted' ? <PassWord ok yes="Accepted" /> : r.state === 'rejected' ? <PassWord ok={false} no="Rejected" /> : docStateWords[r.state] ?? r.state,
+        r.reason ?? '—',
+      ])}
+    />
+  );
+}
+
+// Labels for the figures the other checks report; anything unknown is spelt out from its key.
+const knownLabels: Record<string, string> = {
+  mpanCore: 'MPAN core',
+  valid: 'Check digit valid',
+  reason: 'Reason',
+  distributorId: 'Distributor ID',
+  region: 'Distribution region',
+  earthing: 'Earthing arrangement',
+  outdoorUse: 'Used outdoors',
+  measureNeeded: 'Open-PEN measure needed',
+  softGround: 'Soft ground near',
+  softGroundMetres: 'Soft ground distance',
+  nearThresholdMetres: 'Counts as near within',
+  electrodeGround: 'Electrode ground',
+  ttMaxRaOhms: 'TT RA limit (30 mA RCD)',
+  ttStableRaOhms: 'TT RA for stability',
+  kind: 'Parking',
+  evidence: 'Evidence',
+  evidenceReason: 'Evidence reason',
+  today: 'Today',
+  deliveryDate: 'Car due',
+  surveyLeadDays: 'Survey lead',
+  installLeadDays: 'Install lead',
+  supplyUpgradeLeadDays: 'Network operator lead',
+  totalLeadDays: 'Total lead',
+  networkRoute: 'Network route',
+  earliestInstallDate: 'Earliest install',
+  slackDays: 'Slack wanted',
+  daysUntilDelivery: 'Days to delivery',
+  spareDays: 'Spare days',
+};
+
+function keyWords(key: string): string {
+  if (knownLabels[key]) return knownLabels[key]!;
+  const words = key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase();
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}
+
+function valueWords(key: string, v: unknown): string {
+  if (v === null || v === undefined || v === '') return '—';
+  if (typeof v === 'boolean') return v ? 'Yes' : 'No';
+  if (typeof v === 'number') {
+    if (/Ohms$/.test(key)) return `${formatNumber(v)} Ω`;
+    if (/Days$/.test(key) || key === 'slackDays') return `${formatNumber(v, 0)} days`;
+    if (/Metres$/.test(key)) return `${formatNumber(v)} m`;
+    if (/Amps$/.test(key)) return `${formatNumber(v)} A`;
+    return formatNumber(v);
+  }
+  if (typeof v === 'string') {
+    if (/^\d{4}-\d{2}-\d{2}$/.test(v)) return formatDay(v);
+    if (key === 'earthing') return { pme: 'PME (TN-C-S)', tns: 'TN-S', tt: 'TT', unknown: 'Not known' }[v] ?? v;
+    if (key === 'networkRoute') return networkRouteWords[v] ?? v;
+    // Codes such as "yes" or "unknown" read better as words with a capital.
+    return /^[a-z][a-z-]*$/.test(v) ? `${v.charAt(0).toUpperCase()}${v.slice(1).replace(/-/g, ' ')}` : v;
+  }
+  if (Array.isArray(v)) return v.length ? v.map((x) => (typeof x === 'object' ? JSON.stringify(x) : String(x))).join(', ') : 'None';
+  return JSON.stringify(v);
+}
+
+function Generic({ f }: { f: Figures }) {
+  const rows = Object.entries(f).map(([k, v]) => [keyWords(k), valueWords(k, v)] as [string, ReactNode]);
+  if (rows.length === 0) return null;
+  return <FigureList rows={rows} />;
+}
+
+/** The figures of one check, with a layout for the ones the trade tabulates. */
+export function CheckFigures({ check }: { check: CheckResult }) {
+  const f = check.figures ?? {};
+  switch (check.id) {
+    case 'supply-headroom':
+      return <SupplyHeadroom f={f} />;
+    case 'cable-run':
+      return <CableRun f={f} />;
+    case 'network-operator':
+      return <NetworkOperator f={f} />;
+    case 'cable-reach':
+      return <CableReach f={f} />;
+    case 'documents':
+      return <Documents f={f} />;
+    default:
+      return <Generic f={f} />;
+  }
+}
