@@ -19,7 +19,7 @@ export const inviteSchema = z
         name: z.string({ required_error: 'Enter the customer’s name.' }).trim().min(1, 'Enter the customer’s name.').max(120),
         email: emailField.transform((e) => e.toLowerCase()),
         phone: optionalText(40).superRefine((v, ctx) => {
-          if (v && !checkUkPhone(v).ok) ctx.addIssue({ code: 'custom', message: 'Enter a UK phone number, like 01632 960123 or 07700 900123.' });
+          if (v && !checkUkPhone(v).ok) ctx.addIssue({ code: 'custom', message: 'Enter a UK phone number, like 0113 496 0123 or 020 7946 0958.' });
         }).transform((v) => {
           if (!v) return undefined;
           const r = checkUkPhone(v);
@@ -33,7 +33,7 @@ export const inviteSchema = z
         addressLine2: optionalText(200),
         town: optionalText(100),
         postcode: optionalText(10).superRefine((v, ctx) => {
-          if (v && !checkPostcode(v).ok) ctx.addIssue({ code: 'custom', message: 'Enter a UK postcode, like AB1 2CD.' });
+          if (v && !checkPostcode(v).ok) ctx.addIssue({ code: 'custom', message: 'Enter a UK postcode, like AB1 2DE.' });
         }).transform((v) => {
           if (!v) return undefined;
           const r = checkPostcode(v);
