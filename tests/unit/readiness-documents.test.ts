@@ -59,7 +59,7 @@ describe('documents light', () => {
     const result = documents({}, uploads);
     expect(result.light).toBe('red');
     expect(result.customerText).toContain('Too dark to read the fuse rating');
-    expect(result.staffText).toContain('cutout_photo (Too dark to read the fuse rating)');
+    expect(result.staffText).toContain('cut-out photo (Too dark to read the fuse rating)');
     expect(result.actions[0]).toMatch(/Upload a new photo of the main fuse/);
   });
 

@@ -67,14 +67,27 @@ function customerText(rejected: UploadKindStatus[], missing: UploadKindStatus[],
   return parts.join(' ');
 }
 
+/** The office's short names for each kind of upload, in trade terms. */
+const staffKindNames: Record<UploadKindStatus['kind'], string> = {
+  meter_photo: 'meter photo',
+  cutout_photo: 'cut-out photo',
+  consumer_unit_photo: 'consumer unit photo',
+  charger_location_photo: 'charge point location photo',
+  parking_evidence: 'parking evidence',
+  order_agreement: 'vehicle order agreement',
+  landlord_permission: 'landlord permission',
+  other: 'other document',
+};
+
 function staffText(rejected: UploadKindStatus[], missing: UploadKindStatus[], waiting: UploadKindStatus[], total: number): string {
   const accepted = total - rejected.length - missing.length - waiting.length;
-  const rejectedText = rejected.map((item) => `${item.kind}${item.reason ? ` (${item.reason})` : ''}`).join(', ');
+  const name = (item: UploadKindStatus) => staffKindNames[item.kind];
+  const rejectedText = rejected.map((item) => `${name(item)}${item.reason ? ` (${item.reason})` : ''}`).join(', ');
   return [
     `${accepted}/${total} required uploads accepted.`,
     rejected.length ? `Rejected: ${rejectedText}.` : '',
-    missing.length ? `Missing: ${missing.map((item) => item.kind).join(', ')}.` : '',
-    waiting.length ? `Awaiting review: ${waiting.map((item) => item.kind).join(', ')}.` : '',
+    missing.length ? `Missing: ${missing.map(name).join(', ')}.` : '',
+    waiting.length ? `Awaiting review: ${waiting.map(name).join(', ')}.` : '',
   ]
     .filter(Boolean)
     .join(' ');
