@@ -132,3 +132,99 @@ export function ChevronUpIcon(props: IconProps) {
     </Svg>
   );
 }
+
+/** A clock: waiting for the office to look. @example <ClockIcon /> Waiting for review */
+export function ClockIcon(props: IconProps) {
+  return (
+    <Svg {...props}>
+      <circle cx="12" cy="12" r="9.5" />
+      <path d="M12 7v5l3 2" />
+    </Svg>
+  );
+}
+
+/** A tick in a circle: accepted. @example <AcceptedIcon /> Accepted */
+export function AcceptedIcon(props: IconProps) {
+  return (
+    <Svg {...props}>
+      <circle cx="12" cy="12" r="9.5" />
+      <path d="m7.5 12.5 3 3 6-6.5" />
+    </Svg>
+  );
+}
+
+/** A cross in a circle: not accepted. @example <NotAcceptedIcon /> Not accepted */
+export function NotAcceptedIcon(props: IconProps) {
+  return (
+    <Svg {...props}>
+      <circle cx="12" cy="12" r="9.5" />
+      <path d="m9 9 6 6M15 9l-6 6" />
+    </Svg>
+  );
+}
+
+/** An empty dashed circle: nothing sent yet. @example <MissingIcon /> Still needed */
+export function MissingIcon(props: IconProps) {
+  return (
+    <Svg {...props}>
+      <circle cx="12" cy="12" r="9.5" strokeDasharray="3 3" />
+    </Svg>
+  );
+}
+
+/** A camera: photos. @example <CameraIcon /> */
+export function CameraIcon(props: IconProps) {
+  return (
+    <Svg {...props}>
+      <path d="M4 8h3l1.6-2.4A1.5 1.5 0 0 1 9.9 5h4.2a1.5 1.5 0 0 1 1.3.6L17 8h3a1 1 0 0 1 1 1v9a1 1 0 0 1-1 1H4a1 1 0 0 1-1-1V9a1 1 0 0 1 1-1Z" />
+      <circle cx="12" cy="13" r="3.5" />
+    </Svg>
+  );
+}
+
+/** A page with a folded corner: a document (PDF). @example <DocumentIcon /> */
+export function DocumentIcon(props: IconProps) {
+  return (
+    <Svg {...props}>
+      <path d="M14 3H7a1 1 0 0 0-1 1v16a1 1 0 0 0 1 1h10a1 1 0 0 0 1-1V7Z" />
+      <path d="M14 3v4h4M9 12h6M9 16h6" />
+    </Svg>
+  );
+}
+
+/** A bin: remove. @example <BinIcon /> Remove */
+export function BinIcon(props: IconProps) {
+  return (
+    <Svg {...props}>
+      <path d="M4 7h16M10 11v6M14 11v6M6 7l1 13h10l1-13M9 7V4h6v3" />
+    </Svg>
+  );
+}
+
+/** A plus sign: more, add. @example <PlusIcon /> */
+export function PlusIcon(props: IconProps) {
+  return (
+    <Svg {...props}>
+      <path d="M12 5v14M5 12h14" />
+    </Svg>
+  );
+}
+
+/** A minus sign: less. @example <MinusIcon /> */
+export function MinusIcon(props: IconProps) {
+  return (
+    <Svg {...props}>
+      <path d="M5 12h14" />
+    </Svg>
+  );
+}
+
+/** Four arrows: this item can be moved. @example <MoveIcon /> Drag or use the arrow keys */
+export function MoveIcon(props: IconProps) {
+  return (
+    <Svg {...props}>
+      <path d="M12 3v18M3 12h18" />
+      <path d="m9 5.5 3-3 3 3M9 18.5l3 3 3-3M5.5 9l-3 3 3 3M18.5 9l3 3-3 3" />
+    </Svg>
+  );
+}

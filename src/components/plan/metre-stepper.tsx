@@ -1,7 +1,7 @@
 // A length in metres with large − / + buttons and a box to type in. The arrow keys in the box
 // step 0.1 m (0.5 m with Shift), like the arrow keys on the drawing.
 import { useEffect, useId, useState, type KeyboardEvent } from 'react';
-import { MinusIcon, PlusIcon } from './plan-icons';
+import { MinusIcon, PlusIcon } from '../icons';
 import { roundTo } from '../../lib/readiness/units';
 
 type Props = {

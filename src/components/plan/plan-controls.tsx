@@ -6,7 +6,7 @@ import type { ChargePort } from '../../lib/readiness/types';
 import { formatNumber } from '../../lib/readiness/units';
 import { ChoiceGroup } from './choice-group';
 import { MetreStepper } from './metre-stepper';
-import { BinIcon, PlusIcon } from './plan-icons';
+import { BinIcon, PlusIcon } from '../icons';
 import {
   addBay,
   bayName,

@@ -21,7 +21,7 @@ import {
 } from '../../lib/schemas/uploads';
 import { uploadKindStatus } from '../../lib/readiness/upload-status';
 import { errorMessageOf, fetchUploads } from './api';
-import { AcceptedIcon, ClockIcon, InfoIcon, MissingIcon, NotAcceptedIcon, StopIcon } from './icons';
+import { AcceptedIcon, ClockIcon, InfoIcon, MissingIcon, NotAcceptedIcon, StopIcon } from '../icons';
 import { UploadedFile } from './uploaded-file';
 
 export type UploadSlotProps = {

@@ -3,7 +3,7 @@
 import { useState } from 'react';
 import { formatBytes, uploadStatusWords, type UploadItem, type UploadStatus } from '../../lib/schemas/uploads';
 import { removeUpload } from './api';
-import { AcceptedIcon, BinIcon, ClockIcon, DocumentIcon, NotAcceptedIcon } from './icons';
+import { AcceptedIcon, BinIcon, ClockIcon, DocumentIcon, NotAcceptedIcon } from '../icons';
 
 const chipStyle: Record<UploadStatus, string> = {
   waiting: 'border-ground-200 bg-ground-50 text-ground-800',
