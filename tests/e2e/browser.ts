@@ -63,3 +63,15 @@ export async function snap(page: Page, name: string) {
   mkdirSync(dir, { recursive: true });
   await page.screenshot({ path: join(dir, `${name}.png`), fullPage: true });
 }
+
+/** Signs a customer in the way a real one does: ask for a link, follow the nth one from the inbox. */
+export async function signInByLink(page: Page, email: string, nth = 1) {
+  const { linkIn, waitForMessage } = await import('../helpers/mail');
+  await page.goto('/signin');
+  await page.locator('[data-ready="true"]').waitFor();
+  await page.getByLabel('E-mail address').fill(email);
+  await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
+  await page.getByTestId('check-email').waitFor();
+  await page.goto(linkIn(await waitForMessage(email, nth), baseUrl));
+  await page.waitForURL('**/my');
+}

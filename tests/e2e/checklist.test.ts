@@ -3,25 +3,13 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
-import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, snap } from './browser';
+import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink } from './browser';
 import { db, schema } from '../helpers/db';
-import { linkIn, waitForMessage } from '../helpers/mail';
 import { createCase, createUser } from '../../seeds/factories';
 
 afterAll(close);
 
-type Customer = Awaited<ReturnType<typeof createUser>>;
 
-/** Signs a customer in the way a real one does: ask for a link, follow it from the inbox. */
-async function signIn(page: Page, user: Customer, nth = 1) {
-  await page.goto('/signin');
-  await page.locator('[data-ready="true"]').waitFor();
-  await page.getByLabel('E-mail address').fill(user.email);
-  await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
-  await page.getByTestId('check-email').waitFor();
-  await page.goto(linkIn(await waitForMessage(user.email, nth), baseUrl));
-  await page.waitForURL('**/my');
-}
 
 async function savedRow(caseId: string) {
   const [row] = await db.select().from(schema.cases).where(eq(schema.cases.id, caseId));
@@ -60,7 +48,7 @@ describe('the customer checklist, in Chromium', () => {
     const user = await createUser(db, { role: 'customer', name: 'Ines Farrow' });
     const theCase = await createCase(db, { customerId: user.id, addressLine1: '14 Larch Row', town: 'Brackenford' });
     const { page, context } = await newPage(PHONE);
-    await signIn(page, user);
+    await signInByLink(page, user.email);
     await page.getByRole('link', { name: 'Open checklist' }).click();
     await page.waitForURL(`**/my/cases/${theCase.id}**`);
 
@@ -257,7 +245,7 @@ describe('the customer checklist, in Chromium', () => {
     const user = await createUser(db, { role: 'customer', name: 'Tomasz Hale' });
     const theCase = await createCase(db, { customerId: user.id, checklist: { about: { town: 'Oldbridge' } } });
     const { page: first, context } = await newPage(PHONE);
-    await signIn(first, user);
+    await signInByLink(first, user.email);
     await first.goto(`/my/cases/${theCase.id}#step=about`);
     const second = await context.newPage();
     await second.goto(`/my/cases/${theCase.id}#step=about`);
@@ -289,7 +277,7 @@ describe('the customer checklist, in Chromium', () => {
     const user = await createUser(db, { role: 'customer', name: 'Priya Lund' });
     const theCase = await createCase(db, { customerId: user.id });
     const { page, context } = await newPage(PHONE);
-    await signIn(page, user);
+    await signInByLink(page, user.email);
     await page.goto(`/my/cases/${theCase.id}#step=parking`);
     await page.getByRole('radio', { name: 'A garage at my home' }).waitFor();
     await context.setOffline(true);
@@ -330,7 +318,7 @@ describe('the customer checklist, in Chromium', () => {
     const theirs = await createCase(db, { customerId: owner.id });
     const user = await createUser(db, { role: 'customer' });
     const { page, context } = await newPage(PHONE);
-    await signIn(page, user);
+    await signInByLink(page, user.email);
     const res = await page.goto(`/my/cases/${theirs.id}`);
     expect(res?.status()).toBe(404);
     await expect(page.getByText('We couldn’t find that page').count()).resolves.toBe(1);

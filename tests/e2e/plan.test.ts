@@ -1,8 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, snap } from './browser';
+import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink } from './browser';
 import { db, schema } from '../helpers/db';
-import { linkIn, waitForMessage } from '../helpers/mail';
 import { createCase, createUser } from '../../seeds/factories';
 import { drivewayPlanSchema } from '../../src/lib/readiness/plan';
 import type { Page } from 'playwright-core';
@@ -27,15 +26,6 @@ afterAll(close);
 //  - 5.3 m along, at (0.7, 0): √(3.225² + 0.65²) = √10.823125 = 3.2899, + 0.8 + 1 = 5.09 m
 //    → doesn't reach, "needs 5.1 m".
 
-async function signInByLink(page: Page, email: string) {
-  await page.goto('/signin');
-  await page.locator('[data-ready="true"]').waitFor();
-  await page.getByLabel('E-mail address').fill(email);
-  await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
-  await page.getByTestId('check-email').waitFor();
-  await page.goto(linkIn(await waitForMessage(email), baseUrl));
-  await page.waitForURL('**/my');
-}
 
 // Astro drops the island's `ssr` attribute once React has hydrated it: only then do keys count.
 async function openPlan(page: Page, caseId: string) {

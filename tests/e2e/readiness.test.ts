@@ -1,24 +1,14 @@
 // Readiness in Chromium: a customer's answers produce the checks they see in plain words.
 import { afterAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, snap } from './browser';
+import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink } from './browser';
 import { db } from '../helpers/db';
-import { linkIn, waitForMessage } from '../helpers/mail';
 import { createCase, createUser } from '../../seeds/factories';
 
 afterAll(close);
 
 const noLoads = { cooker: false, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false };
 
-async function signIn(page: Page, email: string) {
-  await page.goto('/signin');
-  await page.locator('[data-ready="true"]').waitFor();
-  await page.getByLabel('E-mail address').fill(email);
-  await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
-  await page.getByTestId('check-email').waitFor();
-  await page.goto(linkIn(await waitForMessage(email), baseUrl));
-  await page.waitForURL('**/my');
-}
 
 const headroom = (page: Page) => page.getByTestId('check-supply-headroom');
 
@@ -40,7 +30,7 @@ describe('readiness on the Check and send step', () => {
       },
     });
     const { page, context } = await newPage(PHONE);
-    await signIn(page, user.email);
+    await signInByLink(page, user.email);
     await page.goto(`/my/cases/${theCase.id}#step=review`);
     await expect.poll(() => headroom(page).getAttribute('data-light'), { timeout: 15_000 }).toBe('red');
     await expect(headroom(page).textContent()).resolves.toContain('more than your 60 A main fuse');

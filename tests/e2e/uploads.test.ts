@@ -3,23 +3,13 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { BrowserContext, Page } from 'playwright-core';
-import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, snap } from './browser';
+import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink } from './browser';
 import { db, schema } from '../helpers/db';
-import { linkIn, waitForMessage } from '../helpers/mail';
 import { createCase, createUser } from '../../seeds/factories';
 import { noisyJpeg, smallImage, tinyPdf } from '../fixtures/uploads';
 
 afterAll(close);
 
-async function signInByLink(page: Page, email: string) {
-  await page.goto('/signin');
-  await page.locator('[data-ready="true"]').waitFor();
-  await page.getByLabel('E-mail address').fill(email);
-  await page.getByRole('button', { name: 'E-mail me a sign-in link' }).click();
-  await page.getByTestId('check-email').waitFor();
-  await page.goto(linkIn(await waitForMessage(email), baseUrl));
-  await page.waitForURL('**/my');
-}
 
 /** A tenant with a new car, so the landlord's permission and the order agreement are asked for too. */
 async function tenantWithCase(name: string) {
