@@ -23,6 +23,6 @@ export default defineConfig({
   server: { host: '127.0.0.1', port: Number(process.env.PORT ?? 4321) },
   devToolbar: { enabled: false },
   vite: {
-    ssr: { external: ['sharp', '@node-rs/argon2'] },
+    ssr: { external: ['sharp', '@node-rs/argon2', 'pdfkit'] },
   },
 });

@@ -364,8 +364,11 @@ describe('who may send, see and delete uploads', () => {
     const list = await surveyor.client.json(`/api/cases/${assigned.id}/uploads`);
     expect(list.status).toBe(200);
     expect(list.body.items.map((i: { id: string }) => i.id)).toEqual([row!.id]);
-    // Surveyors read; sending files is for the customer and the office for now (403, not 404: they may see the case).
-    expect((await post(surveyor.client, assigned.id, form('meter_photo', await smallImage('jpeg')))).status).toBe(403);
+    // The assigned surveyor may add photos from site; a surveyor not assigned gets 404.
+    const site = await post(surveyor.client, assigned.id, form('other', await smallImage('jpeg')));
+    expect(site.status).toBe(201);
+    expect(site.body.kind).toBe('other');
+    expect((await post(surveyor.client, owner.case!.id, form('other', await smallImage('jpeg')))).status).toBe(404);
   });
 
   it('lists the case’s uploads oldest first, each with its links and status, and filters by kind', async () => {

@@ -116,7 +116,12 @@ export default function CaseWorkspace({ initial, people, surveyors }: Props) {
               refresh();
             }}
           />
-          <ChaseButton caseId={caseId} onSent={refresh} />
+          <div className="flex flex-wrap items-start gap-2">
+            <ChaseButton caseId={caseId} onSent={refresh} />
+            <a href={`/surveys/cases/${caseId}`} className="btn-secondary min-h-[40px] px-4 py-2 text-sm">
+              Survey pack
+            </a>
+          </div>
         </div>
         <nav aria-label="On this page" className="mt-4 flex flex-wrap gap-x-4 gap-y-1 border-t border-ground-100 pt-3 text-sm">
           <a href="#checks">Checks</a>

@@ -155,6 +155,8 @@ export interface CheckResult {
   source: string;
   /** What would turn the check green; empty when it is green. */
   actions: string[];
+  /** Set when a surveyor's recorded findings replaced the customer's answer for this check. */
+  confirmedOnSite?: boolean;
 }
 
 export type Check = (input: CheckInput) => CheckResult;

@@ -1,9 +1,11 @@
 // Server-only: computes a case's readiness from its answers and uploads, and stores the result
 // on the case so the office queue can filter and sort by it without recomputing.
 import { eq, notInArray } from 'drizzle-orm';
-import { cases, uploads, type CaseRow } from '../../db/schema';
+import { cases, surveyOutcomes, uploads, type CaseRow } from '../../db/schema';
 import { runChecks, type ChecklistAnswers, type ReadinessResult, type UploadSummary } from '../readiness';
+import { markConfirmedOnSite, withSiteFindings, type SiteFindings } from '../schemas/outcome';
 import { db } from './db.server';
+import { refreshSearchTextSql } from '../../db/search-text';
 import { readinessSettings, todayInGb } from './settings.server';
 
 type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
@@ -16,10 +18,24 @@ export async function uploadSummaries(caseId: string, conn: Conn = db()): Promis
   return conn.select({ kind: uploads.kind, status: uploads.status, reason: uploads.reason }).from(uploads).where(eq(uploads.caseId, caseId));
 }
 
-/** Readiness for one case as it stands in the database now. */
+/** What the survey confirmed on site, if an outcome has been recorded. */
+export async function siteFindings(caseId: string, conn: Conn = db()): Promise<SiteFindings | null> {
+  const [found] = await conn
+    .select({ confirmedEarthing: surveyOutcomes.confirmedEarthing, confirmedFuseAmps: surveyOutcomes.confirmedFuseAmps })
+    .from(surveyOutcomes)
+    .where(eq(surveyOutcomes.caseId, caseId));
+  return found ? (found as SiteFindings) : null;
+}
+
+/**
+ * Readiness for one case as it stands in the database now. Values the surveyor confirmed on
+ * site replace the customer's answers, and the checks resting on them are marked confirmedOnSite.
+ */
 export async function computeReadiness(row: Pick<CaseRow, 'id' | 'checklist'>, conn: Conn = db()): Promise<ReadinessResult> {
-  const [summaries, settings] = await Promise.all([uploadSummaries(row.id, conn), readinessSettings()]);
-  return runChecks({ answers: row.checklist as ChecklistAnswers, uploads: summaries, settings, today: todayInGb() });
+  const [summaries, settings, findings] = await Promise.all([uploadSummaries(row.id, conn), readinessSettings(), siteFindings(row.id, conn)]);
+  const answers = withSiteFindings(row.checklist as ChecklistAnswers, findings);
+  const result = runChecks({ answers, uploads: summaries, settings, today: todayInGb() });
+  return { ...result, checks: markConfirmedOnSite(result.checks, findings) };
 }
 
 /**
@@ -40,6 +56,7 @@ export async function refreshReadiness(caseId: string, conn: Conn = db()): Promi
       readinessAt: new Date(),
     })
     .where(eq(cases.id, caseId));
+  await conn.execute(refreshSearchTextSql(caseId));
   return result;
 }
 

@@ -17,8 +17,8 @@ export const GET = api(async (ctx) => {
 
 /** POST /api/cases/:id/uploads — multipart `kind` + `file`; 201 with the stored upload. */
 export const POST = api(async (ctx) => {
-  // Surveyors may add site photos later; for now the customer and the office send files.
-  const user = requireRole(ctx, 'customer', 'admin');
+  // The customer, the office, and the assigned surveyor (photos from site) may send files.
+  const user = requireRole(ctx, 'customer', 'admin', 'surveyor');
   const row = await findVisibleCase(user, ctx.params.id!);
   if (!row) throw notFound('That case');
   const item = await receiveUpload(user, row, ctx.request);
