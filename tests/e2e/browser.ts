@@ -75,3 +75,8 @@ export async function signInByLink(page: Page, email: string, nth = 1) {
   await page.goto(linkIn(await waitForMessage(email, nth), baseUrl));
   await page.waitForURL('**/my');
 }
+
+/** Waits until every React island on the page has hydrated (Astro drops `ssr` from each then). */
+export async function waitForIslands(page: Page) {
+  await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0, undefined, { timeout: 30_000 });
+}

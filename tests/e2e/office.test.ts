@@ -6,7 +6,7 @@ import { and, eq, ilike } from 'drizzle-orm';
 import { join } from 'node:path';
 import sharp from 'sharp';
 import type { Page } from 'playwright-core';
-import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, snap } from './browser';
+import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, snap, waitForIslands } from './browser';
 import { db, schema } from '../helpers/db';
 import { linkIn, messagesTo, waitForMessage, type Message } from '../helpers/mail';
 import { createCase, createUser } from '../../seeds/factories';
@@ -137,6 +137,7 @@ describe('the office, in Chromium', () => {
     const { page, context } = await newPage(DESKTOP);
     await signInStaff(page, 'admin@example.com');
     await page.waitForURL('**/office');
+    await waitForIslands(page);
     await rowsOf(page).first().waitFor();
     const total = await db.$count(schema.cases);
     await expect.poll(() => page.getByTestId('queue-count').textContent(), waitLong).toContain(`of ${total} cases`);
@@ -148,8 +149,10 @@ describe('the office, in Chromium', () => {
     // Filter: blocked cases of one surname. Each filter lands in the URL.
     await page.getByRole('checkbox', { name: 'Blocked' }).check({ force: true });
     await page.waitForURL(/light=red/);
+    await waitForIslands(page);
     await page.getByLabel('Search').fill('Thornbury');
     await page.waitForURL(/q=Thornbury/);
+    await waitForIslands(page);
     // Counted in the database (other runs may share it), and at least the ones seeded here.
     const expected = (
       await db
@@ -182,6 +185,7 @@ describe('the office, in Chromium', () => {
     // Sorting by a header sets aria-sort and the URL.
     await page.getByRole('button', { name: 'Car due' }).click();
     await page.waitForURL(/sort=delivery&dir=asc/);
+    await waitForIslands(page);
     await expect(page.locator('th[aria-sort="ascending"]').textContent()).resolves.toContain('Car due');
 
     // A view that matches nothing says so and offers to clear the filters.
@@ -198,6 +202,7 @@ describe('the office, in Chromium', () => {
     await page.getByRole('checkbox', { name: 'Filling in' }).check();
     await page.keyboard.press('Escape');
     await page.waitForURL(/stage=filling_in/);
+    await waitForIslands(page);
     await rowsOf(page).first().waitFor();
     await rowsOf(page).nth(0).getByRole('checkbox').check();
     await rowsOf(page).nth(1).getByRole('checkbox').check();
@@ -213,10 +218,12 @@ describe('the office, in Chromium', () => {
     const admin = await newPage(DESKTOP);
     await signInStaff(admin.page, 'admin@example.com');
     await admin.page.waitForURL('**/office');
+    await waitForIslands(admin.page);
 
     // The invitation, through the form.
     await admin.page.getByRole('link', { name: 'Invite', exact: true }).click();
     await admin.page.waitForURL('**/office/invite');
+    await waitForIslands(admin.page);
     await admin.page.getByRole('button', { name: 'Send the invitation' }).first().click();
     await expect(admin.page.getByText('Enter the customer’s name.').count()).resolves.toBe(1);
     await snapBoth(admin.page, 'office-invite');
@@ -245,6 +252,7 @@ describe('the office, in Chromium', () => {
     const customer = await newPage(PHONE);
     await customer.page.goto(linkIn(invitation, baseUrl));
     await customer.page.waitForURL(`**/my/cases/${caseId}**`);
+    await waitForIslands(customer.page);
     const photos = `/my/cases/${caseId}/photos`;
     // The photos page is built alongside this one; wait for it if it is not there yet.
     for (let attempt = 0; ; attempt++) {
@@ -367,6 +375,7 @@ describe('the office, in Chromium', () => {
     const { page, context } = await newPage(DESKTOP);
     await signInStaff(page, 'admin@example.com');
     await page.waitForURL('**/office');
+    await waitForIslands(page);
     await page.goto('/office/invite');
     // The example file offered for download checks out as it stands.
     const example = decodeURIComponent((await page.getByRole('link', { name: 'Download an example file' }).getAttribute('href'))!.replace(/^data:text\/csv;charset=utf-8,/, ''));
@@ -396,6 +405,7 @@ describe('the office, in Chromium', () => {
     const { page, context } = await newPage(DESKTOP);
     await signInStaff(page, 'admin@example.com');
     await page.waitForURL('**/office');
+    await waitForIslands(page);
     await page.getByRole('link', { name: 'Staff', exact: true }).click();
     await page.getByTestId('staff-table').waitFor();
     const email = `wilhelmina.tarrant.${unique()}@example.com`;
@@ -421,6 +431,7 @@ describe('the office, in Chromium', () => {
     await newcomer.page.getByRole('link', { name: 'Go to sign in' }).click();
     await signInStaff(newcomer.page, email, password);
     await newcomer.page.waitForURL('**/surveys');
+    await waitForIslands(newcomer.page);
     await newcomer.context.close();
 
     // Deactivated, the account shows so; your own account cannot be switched off here.

@@ -3,7 +3,7 @@
 import { readFileSync } from 'node:fs';
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { close, DESKTOP, newPage, PHONE, problemsOf, snap } from './browser';
+import { close, DESKTOP, newPage, PHONE, problemsOf, snap, waitForIslands } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 
@@ -20,6 +20,7 @@ async function signIn(page: import('playwright-core').Page) {
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL('**/surveys');
+  await waitForIslands(page);
 }
 
 async function bookedVisit() {
@@ -52,6 +53,7 @@ describe('the surveyor, in Chromium', () => {
     await snap(page, 'surveyor-home-1280');
     await card.getByTestId('open-pack').click();
     await page.waitForURL(`**/surveys/cases/${visit.id}`);
+    await waitForIslands(page);
     await expect(page.getByTestId('pack-mpan').textContent()).resolves.toContain('1312345678907');
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('download-pdf').click()]);
@@ -61,6 +63,7 @@ describe('the surveyor, in Chromium', () => {
 
     await page.getByTestId('record-outcome').click();
     await page.waitForURL(`**/surveys/cases/${visit.id}/outcome`);
+    await waitForIslands(page);
     // Saving with nothing chosen names what is missing, before anything is sent.
     await page.getByTestId('save-outcome').click();
     await expect(page.getByTestId('outcome-errors').textContent()).resolves.toContain('Choose the outcome of the survey.');
@@ -72,6 +75,7 @@ describe('the surveyor, in Chromium', () => {
     await snap(page, 'surveyor-outcome-1280');
     await page.getByTestId('save-outcome').click();
     await page.waitForURL(`**/surveys/cases/${visit.id}?recorded=1`);
+    await waitForIslands(page);
     await expect(page.getByTestId('pack-stage').textContent()).resolves.toBe('Surveyed');
     await expect(page.getByTestId('pack-outcome').textContent()).resolves.toContain('Go ahead with changes');
     // The earthing check now reads the confirmed TN-S.
