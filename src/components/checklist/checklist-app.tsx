@@ -299,7 +299,7 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
                 <SaveStatusLine status={status} />
               </div>
               <p className="mb-6 text-ground-800">{step === 'review' && sent ? 'Your answers are with your installer. You can still fill a gap or correct an answer.' : intros[step]}</p>
-              <form onSubmit={(e) => e.preventDefault()} noValidate>
+              <form method="post" onSubmit={(e) => e.preventDefault()} noValidate>
                 <fieldset disabled={!view.editable} className="min-w-0">
                   {step === 'about' && <AboutStep caseId={view.id} />}
                   {step === 'vehicle' && <VehicleStep caseId={view.id} />}

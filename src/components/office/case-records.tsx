@@ -71,7 +71,7 @@ export function NotesPanel({ caseId, refreshKey, onAdded }: { caseId: string; re
           ))}
         </ol>
       )}
-      <form onSubmit={add} className="mt-3" noValidate>
+      <form method="post" onSubmit={add} className="mt-3" noValidate>
         <label htmlFor={`${id}-note`} className="field-label text-sm">Add a note</label>
         <textarea
           id={`${id}-note`}

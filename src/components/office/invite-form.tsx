@@ -92,7 +92,7 @@ export default function InviteForm() {
         <p role="alert" className="mb-4 rounded-md border border-blocked/30 bg-blocked-soft p-3 font-semibold text-blocked">{outcome.message}</p>
       )}
 
-      <form onSubmit={submit} noValidate className="grid gap-4 sm:grid-cols-2">
+      <form method="post" onSubmit={submit} noValidate className="grid gap-4 sm:grid-cols-2">
         {field({ name: 'customer.name', label: 'Customer’s name', autoComplete: 'off' })}
         {field({ name: 'customer.email', label: 'E-mail address', type: 'email', autoComplete: 'off' })}
         {field({ name: 'customer.phone', label: 'Phone (optional)', type: 'tel', autoComplete: 'off', help: 'A UK number, e.g. 0113 496 0123.' })}

@@ -46,7 +46,7 @@ export default function SetPasswordForm({ email, token }: Props) {
   }
   const err = formState.errors;
   return (
-    <form onSubmit={submit} noValidate className="card space-y-4">
+    <form method="post" onSubmit={submit} noValidate className="card space-y-4">
       <p className="text-ground-800">Choose a password for <span className="break-all font-semibold">{email}</span>. Use at least 12 characters — a few unrelated words work well.</p>
       {error && <p role="alert" className="flex items-start gap-2 rounded-md border border-blocked/30 bg-blocked-soft p-3 text-blocked"><StopIcon className="mt-0.5 h-5 w-5" />{error}</p>}
       <input type="email" autoComplete="username" value={email} readOnly hidden />

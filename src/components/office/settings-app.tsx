@@ -193,7 +193,7 @@ export default function SettingsApp() {
 
   return (
     <div className="space-y-6">
-      <form onSubmit={(e) => save('readiness', e)} noValidate className="card" aria-labelledby="readiness-settings-heading">
+      <form method="post" onSubmit={(e) => save('readiness', e)} noValidate className="card" aria-labelledby="readiness-settings-heading">
         <h2 id="readiness-settings-heading" className="text-xl font-bold text-ground-900">Readiness checks</h2>
         <p className="text-sm text-ground-800">
           Saving works out every open case’s readiness again. These are preparation thresholds, not design values: the installation is designed and
@@ -234,7 +234,7 @@ export default function SettingsApp() {
         <SaveBar changes={readinessChanges} busy={busy === 'readiness'} message={message?.group === 'readiness' ? message : null} />
       </form>
 
-      <form onSubmit={(e) => save('reminders', e)} noValidate className="card" aria-labelledby="reminder-settings-heading">
+      <form method="post" onSubmit={(e) => save('reminders', e)} noValidate className="card" aria-labelledby="reminder-settings-heading">
         <h2 id="reminder-settings-heading" className="text-xl font-bold text-ground-900">Automatic reminders</h2>
         <p className="text-sm text-ground-800">For cases still being filled in. Each reminder lists exactly what is missing, with a sign-in link.</p>
         <div className="divide-y divide-ground-100">

@@ -43,7 +43,7 @@ function InviteStaff({ onInvited }: { onInvited(s: Staff): void }) {
       <p className="mb-3 text-sm text-ground-800">Admins work the queue, invite customers and change settings. Surveyors see the cases booked to them.</p>
       {sent && <p role="status" className="mb-3 flex items-center gap-2 rounded-md border border-clear/30 bg-clear-soft p-2 text-sm font-semibold" data-testid="staff-invited"><CheckIcon className="h-4 w-4 text-clear" />{sent}</p>}
       {failure && <p role="alert" className="mb-3 rounded-md border border-blocked/30 bg-blocked-soft p-2 text-sm font-semibold text-blocked">{failure}</p>}
-      <form onSubmit={submit} noValidate className="grid gap-3">
+      <form method="post" onSubmit={submit} noValidate className="grid gap-3">
         <div>
           <label htmlFor="staff-name" className="field-label">Name</label>
           <input id="staff-name" className="field-input" autoComplete="off" aria-invalid={!!err.name} aria-describedby={err.name ? 'staff-name-error' : undefined} {...register('name')} />

@@ -118,7 +118,7 @@ export default function OutcomeForm({ caseId, reference, customerEarthing, custo
   const errorText = (key: string) => fieldError(key) && <p id={`${key}-error`} className="field-error">{fieldError(key)}</p>;
 
   return (
-    <form onSubmit={submit} noValidate className="grid gap-5" data-testid="outcome-form" aria-describedby="outcome-intro">
+    <form method="post" onSubmit={submit} noValidate className="grid gap-5" data-testid="outcome-form" aria-describedby="outcome-intro">
       <p id="outcome-intro" className="text-ground-800">
         Saving moves case <span className="font-mono font-semibold">{reference}</span> to Surveyed, tells the office, and the checks then use what you confirmed in place of the customer’s answers.
       </p>
