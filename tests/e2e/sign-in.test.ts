@@ -26,6 +26,10 @@ describe('signing in, in Chromium', () => {
     await expect(page.getByTestId('home-heading').textContent()).resolves.toContain('Hello, Hana');
     await expect(page.getByText('5 Kestrel Walk').count()).resolves.toBe(1);
     await snap(page, 'customer-home-390');
+    await page.setViewportSize(DESKTOP);
+    await snap(page, 'customer-home-1280');
+    await page.goto('/');
+    await snap(page, 'landing-1280');
     expect(problemsOf(page)).toEqual([]);
     await context.close();
   });
@@ -43,6 +47,7 @@ describe('signing in, in Chromium', () => {
     await page.getByLabel('Password').fill(process.env.DEMO_PASSWORD ?? 'groundwork-demo');
     await page.getByRole('button', { name: 'Sign in' }).click();
     await page.waitForURL('**/office');
+    await snap(page, 'office-home-1280');
     await expect(page.getByTestId('home-heading').textContent()).resolves.toBe('Cases');
     expect(problemsOf(page)).toEqual([]);
     await context.close();

@@ -51,6 +51,9 @@ describe('the surveyor, in Chromium', () => {
     await expect(card.textContent()).resolves.toContain('12 Saddlers Yard');
     await expect(card.textContent()).resolves.toContain('Needs attention');
     await snap(page, 'surveyor-home-1280');
+    await page.setViewportSize(PHONE);
+    await snap(page, 'surveyor-home-390');
+    await page.setViewportSize(DESKTOP);
     await card.getByTestId('open-pack').click();
     await page.waitForURL(`**/surveys/cases/${visit.id}`);
     await waitForIslands(page);
