@@ -56,3 +56,15 @@ export function allowedMoves(from: StageId): StageId[] {
   if (openStages.includes(from)) next.push('withdrawn');
   return next;
 }
+
+/** Tailwind classes for each stage's pill, shared by the Astro badge and the React pill. */
+export const stageTone: Record<StageId, string> = {
+  invited: 'bg-ground-50 text-ground-800 border-ground-200',
+  filling_in: 'bg-ground-50 text-ground-800 border-ground-200',
+  sent_for_review: 'bg-clay-50 text-clay-800 border-clay-200',
+  in_review: 'bg-clay-50 text-clay-800 border-clay-200',
+  ready_for_survey: 'bg-clear-soft text-clear border-clear/30',
+  survey_booked: 'bg-clear-soft text-clear border-clear/30',
+  surveyed: 'bg-ground-100 text-ground-900 border-ground-300',
+  withdrawn: 'bg-white text-ground-600 border-ground-200',
+};

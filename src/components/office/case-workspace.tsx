@@ -8,7 +8,7 @@ import { CaseAnswers } from './case-answers';
 import { AuditPanel, EmailsPanel, NotesPanel } from './case-records';
 import type { CasePeople, OfficeCaseView, Readiness, StaffMember } from './case-types';
 import { formatDay, formatDayTime, plural } from './format';
-import { LightBadge } from './lights';
+import { LightBadge } from '../readiness/light-badge';
 import { ReadinessPanel } from './readiness-panel';
 import { StageActions } from './stage-actions';
 import { StagePill } from './stage-pill';

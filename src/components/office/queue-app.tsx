@@ -13,7 +13,7 @@ import type { QueueItem, QueueSortKey } from '../../lib/schemas/queue';
 import { ChevronDownIcon, ChevronLeftIcon, ChevronRightIcon, ChevronUpIcon, InfoIcon, SendIcon, SpinnerIcon, StopIcon } from '../icons';
 import { apiCall, type ApiError } from './api';
 import { daysSince, daysUntil, formatDay, plural, relativeDays } from './format';
-import { LightBadge } from './lights';
+import { LightBadge } from '../readiness/light-badge';
 import { QueueFilters, type Surveyor } from './queue-filters';
 import { clearFilters, hasFilters, searchFromView, viewFromSearch, type QueueView } from './queue-state';
 import { StagePill } from './stage-pill';

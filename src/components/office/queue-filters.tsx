@@ -3,7 +3,8 @@ import { useEffect, useRef, type ReactNode } from 'react';
 import { lights } from '../../lib/schemas/queue';
 import { stageLabels, stages, type StageId } from '../../lib/stages';
 import { ChevronDownIcon } from '../icons';
-import { LightIcon, lightWords } from './lights';
+import { LightIcon } from '../readiness/light-badge';
+import { staffLightWords as lightWords } from '../../lib/readiness/lights';
 import { toggle, type Light, type QueueView } from './queue-state';
 
 export type Surveyor = { id: string; name: string | null; email: string };

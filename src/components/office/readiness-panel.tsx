@@ -4,7 +4,7 @@ import { useState } from 'react';
 import type { CheckResult } from '../../lib/readiness/types';
 import { ChevronDownIcon } from '../icons';
 import { CheckFigures } from './check-figures';
-import { LightBadge } from './lights';
+import { LightBadge } from '../readiness/light-badge';
 
 export function ReadinessPanel({ checks }: { checks: CheckResult[] }) {
   // Blocking checks open with their figures; the rest show their reading and open on demand.

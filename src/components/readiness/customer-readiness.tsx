@@ -4,10 +4,11 @@ import { useEffect, useState } from 'react';
 import type { CheckResult, Light } from '../../lib/readiness/types';
 import { SpinnerIcon } from '../icons';
 import { LightBadge } from './light-badge';
+import { lightRank } from '../../lib/readiness/lights';
 
 type Readiness = { light: Light; gapCount: number; checks: CheckResult[] };
 
-const order: Record<Light, number> = { red: 0, amber: 1, green: 2 };
+const order = lightRank;
 
 export default function CustomerReadiness({ caseId, version }: { caseId: string; version: number }) {
   const [data, setData] = useState<Readiness | null>(null);
@@ -38,14 +39,14 @@ export default function CustomerReadiness({ caseId, version }: { caseId: string;
         <h3 id="readiness-heading" className="text-lg font-bold text-ground-900">
           What your answers tell your installer
         </h3>
-        <LightBadge light={data.light} />
+        <LightBadge light={data.light} audience="customer" />
       </div>
       <ul className="divide-y divide-ground-100">
         {checks.map((c) => (
           <li key={c.id} className="px-4 py-3" data-testid={`check-${c.id}`} data-light={c.light}>
             <div className="flex flex-wrap items-center justify-between gap-2">
               <p className="font-semibold text-ground-900">{c.title}</p>
-              <LightBadge light={c.light} />
+              <LightBadge light={c.light} audience="customer" />
             </div>
             <p className="mt-1 text-ground-800">{c.customerText}</p>
             {c.light !== 'green' && c.actions.length > 0 && (

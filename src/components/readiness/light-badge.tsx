@@ -1,30 +1,33 @@
 // A readiness light as a word, an icon and a colour together: colour is never the only signal.
+// One component for the customer's, the office's and the surveyor's screens.
 import type { Light } from '../../lib/readiness/types';
+import { customerLightWords, staffLightWords } from '../../lib/readiness/lights';
 import { CheckIcon, StopIcon, WarningIcon } from '../icons';
 
-export const lightWords: Record<Light, { customer: string; staff: string }> = {
-  green: { customer: 'All clear', staff: 'Clear' },
-  amber: { customer: 'Needs attention', staff: 'Attention' },
-  red: { customer: 'Holding things up', staff: 'Blocked' },
+const look: Record<Light, string> = {
+  green: 'border-clear/30 bg-clear-soft text-clear',
+  amber: 'border-attention/30 bg-attention-soft text-attention',
+  red: 'border-blocked/30 bg-blocked-soft text-blocked',
 };
 
-const tone: Record<Light, string> = {
-  green: 'bg-clear-soft text-clear border-clear/30',
-  amber: 'bg-attention-soft text-attention border-attention/30',
-  red: 'bg-blocked-soft text-blocked border-blocked/30',
-};
-
+/** The icon alone (decorative: always placed beside the word). */
 export function LightIcon({ light, className = 'h-4 w-4' }: { light: Light; className?: string }) {
   if (light === 'green') return <CheckIcon className={className} />;
   if (light === 'amber') return <WarningIcon className={className} />;
   return <StopIcon className={className} />;
 }
 
-export function LightBadge({ light, audience = 'customer' }: { light: Light; audience?: 'customer' | 'staff' }) {
+/**
+ * A pill with the light's icon and word.
+ * @example <LightBadge light="amber" /> // "Needs attention" with a warning triangle
+ */
+export function LightBadge({ light, size = 'sm', audience = 'staff' }: { light: Light; size?: 'sm' | 'md'; audience?: 'customer' | 'staff' }) {
+  const pad = size === 'md' ? 'px-3 py-1 text-base' : 'px-2 py-0.5 text-sm';
+  const words = audience === 'customer' ? customerLightWords : staffLightWords;
   return (
-    <span className={`inline-flex items-center gap-1 whitespace-nowrap rounded-full border px-2.5 py-0.5 text-sm font-semibold ${tone[light]}`} data-light={light}>
-      <LightIcon light={light} />
-      {lightWords[light][audience]}
+    <span className={`inline-flex items-center gap-1.5 whitespace-nowrap rounded-full border font-semibold print:bg-white ${pad} ${look[light]}`} data-light={light}>
+      <LightIcon light={light} className={size === 'md' ? 'h-5 w-5' : 'h-4 w-4'} />
+      {words[light]}
     </span>
   );
 }

@@ -5,7 +5,7 @@ import type { Light } from '../../lib/readiness/types';
 import { uploadKindInfo, type UploadKind } from '../../lib/schemas/uploads';
 
 /** The word for each light, as staff read it (always shown beside the colour and an icon). */
-export const lightWords: Readonly<Record<Light, string>> = Object.freeze({ green: 'Clear', amber: 'Needs attention', red: 'Blocked' });
+export { staffLightWords as lightWords } from '../../lib/readiness/lights';
 
 /** Short staff labels; anything not listed falls back to the checklist's own field label. */
 const staffLabels: Record<string, string> = {

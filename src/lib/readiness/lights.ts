@@ -3,6 +3,9 @@ import type { Light } from './types';
 
 const severity: Record<Light, number> = { green: 0, amber: 1, red: 2 };
 
+/** Red sorts first, then amber, then green: the office queue's "worst first" order. */
+export const lightRank = Object.freeze({ red: 0, amber: 1, green: 2 } as const);
+
 /**
  * The worst of some lights; green when there are none.
  *
@@ -20,3 +23,13 @@ export function worstLight(lights: readonly Light[]): Light {
 export function atLeast(light: Light, floor: Light): Light {
   return worstLight([light, floor]);
 }
+
+/** The word for each light in the office's and the surveyor's terms (always shown beside its icon). */
+export const staffLightWords: Readonly<Record<Light, string>> = Object.freeze({ green: 'Clear', amber: 'Needs attention', red: 'Blocked' });
+
+/** The word for each light as the customer reads it. */
+export const customerLightWords: Readonly<Record<Light, string>> = Object.freeze({
+  green: 'All clear',
+  amber: 'Needs attention',
+  red: 'Holding things up',
+});
