@@ -6,9 +6,8 @@ import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import PDFDocument from 'pdfkit';
 import sharp from 'sharp';
 import { mpanCheckDigit } from '../src/lib/validation/mpan';
-import { createCase, createUser } from './factories';
+import { createCase, createUser, readinessColumns } from './factories';
 import { caseNotes, cases, settings, uploads, type CaseRow, type UploadRow } from '../src/db/schema';
-import { runChecks, type ChecklistAnswers } from '../src/lib/readiness';
 import { uploadLimits } from '../src/lib/schemas/uploads';
 import { uploadStorage } from '../src/lib/server/storage/index.server';
 
@@ -348,14 +347,12 @@ async function seedEvidence(db: Db, input: { caseRow: CaseRow; customerId: strin
     });
   }
   await db.insert(uploads).values(rows);
-  const result = runChecks({
-    answers: input.caseRow.checklist as ChecklistAnswers,
-    uploads: rows.map((r) => ({ kind: r.kind, status: r.status, reason: r.reason })),
-    today: new Date().toISOString().slice(0, 10),
-  });
-  const rank = { red: 0, amber: 1, green: 2 } as const;
+  const readiness = readinessColumns(
+    input.caseRow.checklist as Record<string, unknown>,
+    rows.map((r) => ({ kind: r.kind, status: r.status, reason: r.reason })),
+  );
   await db
     .update(cases)
-    .set({ readinessLight: result.light, readinessRank: rank[result.light], readinessGaps: result.gapCount, readinessChecks: result.checks, readinessAt: new Date(), lastCustomerActivityAt: new Date(start + prepared.length * 60_000) })
+    .set({ ...readiness, lastCustomerActivityAt: new Date(start + prepared.length * 60_000) })
     .where(eq(cases.id, input.caseRow.id));
 }

@@ -4,15 +4,15 @@ import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import { auditLog, cases, users, type Role, type Stage } from '../src/db/schema';
 import { newCaseReference } from '../src/lib/case-reference';
 import { refreshSearchTextSql } from '../src/db/search-text';
-import { runChecks, type ChecklistAnswers } from '../src/lib/readiness';
+import { runChecks, type ChecklistAnswers, type UploadSummary } from '../src/lib/readiness';
+import { lightRank } from '../src/lib/readiness/lights';
 
-const rank = { red: 0, amber: 1, green: 2 } as const;
 const today = () => new Date().toISOString().slice(0, 10);
 
-/** The readiness columns for a checklist with no uploads yet, with default settings. */
-export function readinessColumns(checklist: Record<string, unknown>) {
-  const r = runChecks({ answers: checklist as ChecklistAnswers, uploads: [], today: today() });
-  return { readinessLight: r.light, readinessRank: rank[r.light], readinessGaps: r.gapCount, readinessChecks: r.checks, readinessAt: new Date() };
+/** The readiness columns for a checklist and its uploads (none by default), with default settings. */
+export function readinessColumns(checklist: Record<string, unknown>, uploads: UploadSummary[] = []) {
+  const r = runChecks({ answers: checklist as ChecklistAnswers, uploads, today: today() });
+  return { readinessLight: r.light, readinessRank: lightRank[r.light], readinessGaps: r.gapCount, readinessChecks: r.checks, readinessAt: new Date() };
 }
 
 type Db = PostgresJsDatabase<Record<string, unknown>>;

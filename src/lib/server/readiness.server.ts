@@ -2,7 +2,8 @@
 // on the case so the office queue can filter and sort by it without recomputing.
 import { eq, notInArray } from 'drizzle-orm';
 import { cases, surveyOutcomes, uploads, type CaseRow } from '../../db/schema';
-import { runChecks, type ChecklistAnswers, type ReadinessResult, type UploadSummary } from '../readiness';
+import { runChecks, type ChecklistAnswers, type ReadinessResult, type ReadinessSettings, type UploadSummary } from '../readiness';
+import { lightRank } from '../readiness/lights';
 import { markConfirmedOnSite, withSiteFindings, type SiteFindings } from '../schemas/outcome';
 import { db } from './db.server';
 import { refreshSearchTextSql } from '../../db/search-text';
@@ -11,8 +12,6 @@ import { readinessSettings, todayInGb } from './settings.server';
 type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
 type Conn = Tx | ReturnType<typeof db>;
 
-/** Red sorts first, then amber, then green: the queue's "worst first" order. */
-export const lightRank = { red: 0, amber: 1, green: 2 } as const;
 
 export async function uploadSummaries(caseId: string, conn: Conn = db()): Promise<UploadSummary[]> {
   return conn.select({ kind: uploads.kind, status: uploads.status, reason: uploads.reason }).from(uploads).where(eq(uploads.caseId, caseId));
@@ -31,8 +30,12 @@ export async function siteFindings(caseId: string, conn: Conn = db()): Promise<S
  * Readiness for one case as it stands in the database now. Values the surveyor confirmed on
  * site replace the customer's answers, and the checks resting on them are marked confirmedOnSite.
  */
-export async function computeReadiness(row: Pick<CaseRow, 'id' | 'checklist'>, conn: Conn = db()): Promise<ReadinessResult> {
-  const [summaries, settings, findings] = await Promise.all([uploadSummaries(row.id, conn), readinessSettings(), siteFindings(row.id, conn)]);
+export async function computeReadiness(
+  row: Pick<CaseRow, 'id' | 'checklist'>,
+  conn: Conn = db(),
+  known?: ReadinessSettings,
+): Promise<ReadinessResult> {
+  const [summaries, settings, findings] = await Promise.all([uploadSummaries(row.id, conn), known ?? readinessSettings(), siteFindings(row.id, conn)]);
   const answers = withSiteFindings(row.checklist as ChecklistAnswers, findings);
   const result = runChecks({ answers, uploads: summaries, settings, today: todayInGb() });
   return { ...result, checks: markConfirmedOnSite(result.checks, findings) };
@@ -42,10 +45,10 @@ export async function computeReadiness(row: Pick<CaseRow, 'id' | 'checklist'>, c
  * Recomputes and stores the readiness of one case; call it inside the transaction that changed
  * the answers or uploads so the stored light never disagrees with them.
  */
-export async function refreshReadiness(caseId: string, conn: Conn = db()): Promise<ReadinessResult | undefined> {
+export async function refreshReadiness(caseId: string, conn: Conn = db(), settings?: ReadinessSettings): Promise<ReadinessResult | undefined> {
   const [row] = await conn.select({ id: cases.id, checklist: cases.checklist }).from(cases).where(eq(cases.id, caseId));
   if (!row) return undefined;
-  const result = await computeReadiness(row, conn);
+  const result = await computeReadiness(row, conn, settings);
   await conn
     .update(cases)
     .set({
@@ -66,6 +69,8 @@ export async function refreshAllOpenCases(): Promise<number> {
     .select({ id: cases.id })
     .from(cases)
     .where(notInArray(cases.stage, ['surveyed', 'withdrawn']));
-  for (const { id } of ids) await refreshReadiness(id);
+  // Read the settings once for the whole batch, not once per case.
+  const settings = await readinessSettings();
+  for (const { id } of ids) await refreshReadiness(id, db(), settings);
   return ids.length;
 }
