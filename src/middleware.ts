@@ -2,7 +2,8 @@
 // read and `locals.user` filled with the active user (or null).
 import { defineMiddleware, sequence } from 'astro:middleware';
 import { getSession } from 'auth-astro/server';
-import { errorResponse, HttpError } from './lib/server/http';
+import { isDatabaseUnavailable } from './lib/server/db-errors.server';
+import { databaseUnavailable, errorResponse, HttpError } from './lib/server/http';
 import { signInLimits } from './lib/server/rate-limit.server';
 import { findActiveUser, normaliseEmail } from './lib/server/users.server';
 
@@ -64,7 +65,15 @@ const auth = defineMiddleware(async (ctx, next) => {
   if (ctx.url.pathname.startsWith('/api/auth/') || ctx.url.pathname.startsWith('/_astro/')) return next();
   const session = await getSession(ctx.request).catch(() => null);
   const id = (session?.user as { id?: string } | undefined)?.id;
-  if (id) ctx.locals.user = (await findActiveUser(id)) ?? null;
+  if (id) {
+    try {
+      ctx.locals.user = (await findActiveUser(id)) ?? null;
+    } catch (err) {
+      // API callers get the JSON 503; pages fall through to src/pages/500.astro, which says 503 kindly.
+      if (isDatabaseUnavailable(err) && ctx.url.pathname.startsWith('/api/')) return errorResponse(databaseUnavailable());
+      throw err;
+    }
+  }
   return next();
 });
 

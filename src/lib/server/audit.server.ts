@@ -1,8 +1,6 @@
 // Server-only: writes the audit trail — who changed what, when, with before and after.
 import { auditLog } from '../../db/schema';
-import { db } from './db.server';
-
-type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
+import type { Conn } from './db.server';
 
 export type AuditEntry = {
   caseId?: string | null;
@@ -14,9 +12,12 @@ export type AuditEntry = {
   after?: unknown;
 };
 
-/** Records one change; pass the transaction so the entry commits (or not) with the change. */
-export async function audit(entry: AuditEntry, tx: Tx | ReturnType<typeof db> = db()) {
-  await tx.insert(auditLog).values({
+/**
+ * Records one change; inside a transaction pass it, so the entry commits (or not) with the change.
+ * @example await audit(tx, { caseId, actorId, action: 'note.added', entity: 'note', entityId });
+ */
+export async function audit(conn: Conn, entry: AuditEntry) {
+  await conn.insert(auditLog).values({
     caseId: entry.caseId ?? null,
     actorId: entry.actorId ?? null,
     action: entry.action,

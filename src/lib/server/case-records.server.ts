@@ -19,7 +19,7 @@ export async function listNotes(caseId: string) {
 
 export async function addNote(user: SessionUser, caseId: string, body: string) {
   const [note] = await db().insert(caseNotes).values({ caseId, authorId: user.id, body }).returning();
-  await audit({ caseId, actorId: user.id, action: 'note.added', entity: 'note', entityId: note!.id, after: { body } });
+  await audit(db(), { caseId, actorId: user.id, action: 'note.added', entity: 'note', entityId: note!.id, after: { body } });
   return { ...note!, authorName: user.name };
 }
 

@@ -19,7 +19,7 @@ export type ChaseResult = { caseId: string; sent: boolean; items: string[]; reas
  * A reminder passes its slot as dedupeKey so it cannot go twice.
  */
 export async function chaseCase(row: CaseRow, opts: { actorId: string | null; reminder?: boolean; dedupeKey?: string }): Promise<ChaseResult> {
-  const items = customerGaps(row.checklist as Checklist, await uploadSummaries(row.id)).map((g) => g.text);
+  const items = customerGaps(row.checklist as Checklist, await uploadSummaries(db(), row.id)).map((g) => g.text);
   if (items.length === 0) return { caseId: row.id, sent: false, items, reason: 'Nothing is missing.' };
   if (row.stage === 'surveyed' || row.stage === 'withdrawn') return { caseId: row.id, sent: false, items, reason: 'The case is closed.' };
   const [customer] = await db().select().from(users).where(eq(users.id, row.customerId));
@@ -38,7 +38,7 @@ export async function chaseCase(row: CaseRow, opts: { actorId: string | null; re
     .update(cases)
     .set({ lastChasedAt: new Date(), ...(opts.reminder ? { remindersSent: sql`${cases.remindersSent} + 1` } : {}) })
     .where(eq(cases.id, row.id));
-  await audit({ caseId: row.id, actorId: opts.actorId, action: opts.reminder ? 'case.reminded' : 'case.chased', entity: 'case', entityId: row.id, after: { items } });
+  await audit(db(), { caseId: row.id, actorId: opts.actorId, action: opts.reminder ? 'case.reminded' : 'case.chased', entity: 'case', entityId: row.id, after: { items } });
   return { caseId: row.id, sent: true, items };
 }
 

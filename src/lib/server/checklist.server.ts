@@ -4,8 +4,9 @@ import { cases, type CaseRow } from '../../db/schema';
 import { mergeChecklist, sectionProgress, type Checklist, type ChecklistPatch } from '../schemas/checklist';
 import { audit } from './audit.server';
 import { editableStages, toCaseView } from './case-view.server';
-import { db } from './db.server';
+import { transaction } from './db.server';
 import { refreshReadiness } from './readiness.server';
+import { readinessSettings } from './settings.server';
 import { HttpError } from './http';
 import type { SessionUser } from './users.server';
 
@@ -32,7 +33,9 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
   if (!editableStages.includes(row.stage)) {
     throw new HttpError(409, 'conflict', 'This case can no longer be changed. Please contact your installer.', undefined, { reason: 'locked' });
   }
-  return db().transaction(async (tx) => {
+  // Read before the transaction opens: inside it, every query must go through tx.
+  const settings = await readinessSettings();
+  return transaction(async (tx) => {
     const [current] = await tx.select().from(cases).where(eq(cases.id, row.id)).for('update');
     if (!current) throw new HttpError(404, 'not_found', 'That case was not found.');
     if (ifVersion !== null && current.version !== ifVersion) {
@@ -61,8 +64,7 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
       })
       .where(and(eq(cases.id, row.id)))
       .returning();
-    await audit(
-      {
+    await audit(tx, {
         caseId: row.id,
         actorId: user.id,
         action: 'checklist.updated',
@@ -70,12 +72,10 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
         entityId: row.id,
         before: Object.fromEntries(Object.entries(changes).map(([k, [b]]) => [k, b])),
         after: Object.fromEntries(Object.entries(changes).map(([k, [, a]]) => [k, a])),
-      },
-      tx,
-    );
-    await refreshReadiness(row.id, tx);
+      });
+    await refreshReadiness(tx, row.id, settings);
     if (current.stage !== saved!.stage) {
-      await audit({ caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: current.stage }, after: { stage: saved!.stage } }, tx);
+      await audit(tx, { caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: current.stage }, after: { stage: saved!.stage } });
     }
     const [fresh] = await tx.select().from(cases).where(eq(cases.id, row.id));
     return toCaseView(fresh!);
@@ -99,16 +99,13 @@ export async function submitCase(user: SessionUser, row: CaseRow, acknowledgeGap
   if (gaps.length > 0 && !acknowledgeGaps) {
     throw new HttpError(409, 'conflict', 'Some answers are still missing. Send anyway?', undefined, { gaps });
   }
-  const [saved] = await db().transaction(async (tx) => {
+  const [saved] = await transaction(async (tx) => {
     const result = await tx
       .update(cases)
       .set({ stage: 'sent_for_review', submittedAt: new Date(), updatedAt: new Date(), lastCustomerActivityAt: new Date(), version: sql`${cases.version} + 1` })
       .where(eq(cases.id, row.id))
       .returning();
-    await audit(
-      { caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: row.stage }, after: { stage: 'sent_for_review', gaps: gaps.length } },
-      tx,
-    );
+    await audit(tx, { caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: row.stage }, after: { stage: 'sent_for_review', gaps: gaps.length } });
     return result;
   });
   return { view: toCaseView(saved!), gaps };

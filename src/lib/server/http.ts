@@ -2,6 +2,10 @@
 import type { APIContext } from 'astro';
 import type { ZodType, ZodTypeDef } from 'zod';
 import { zodIssuesToFields } from '../schemas/checklist';
+import { isDatabaseUnavailable } from './db-errors.server';
+
+/** Seconds a client should wait before trying again after a 503. */
+export const RETRY_AFTER_SECONDS = 10;
 
 export type ErrorCode =
   | 'bad_request'
@@ -32,8 +36,15 @@ export class HttpError extends Error {
 /** `{ "error": { code, message, fields? } }` — the one error shape of the API. */
 export function errorResponse(err: HttpError): Response {
   const body = { error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}), ...err.extra } };
-  return json(body, err.status);
+  // RFC 9110 §10.2.3: a 503 says when to come back.
+  return json(body, err.status, err.status === 503 ? { 'Retry-After': String(err.extra?.retryAfter ?? RETRY_AFTER_SECONDS) } : {});
 }
+
+/** The 503 an unreachable or timed-out database becomes. */
+export const databaseUnavailable = () =>
+  new HttpError(503, 'unavailable', 'We are having trouble reaching our database. Your answers are safe: please try again in a minute.', undefined, {
+    retryAfter: RETRY_AFTER_SECONDS,
+  });
 
 export function json(data: unknown, status = 200, headers: Record<string, string> = {}): Response {
   return new Response(JSON.stringify(data), {
@@ -52,6 +63,12 @@ export function api(handler: (ctx: APIContext) => Promise<Response>) {
       return await handler(ctx);
     } catch (err) {
       if (err instanceof HttpError) return errorResponse(err);
+      if (isDatabaseUnavailable(err)) {
+        // The driver's own message, never Drizzle's wrapper: that one lists the query's parameters (answers).
+        const root = rootCause(err);
+        console.warn(`[db] unavailable: ${root.code ?? ''} ${root.message ?? ''}`.trim());
+        return errorResponse(databaseUnavailable());
+      }
       console.error(err);
       return errorResponse(new HttpError(500, 'internal', 'Something went wrong on our side. Please try again.'));
     }
@@ -75,6 +92,12 @@ export async function parseJsonBody<T>(request: Request, schema: ZodType<T, ZodT
     throw new HttpError(422, 'invalid', 'Some answers need fixing before they can be saved.', zodIssuesToFields(parsed.error));
   }
   return parsed.data;
+}
+
+function rootCause(err: unknown): { code?: string; message?: string } {
+  let e = err as { cause?: unknown; code?: string; message?: string };
+  for (let i = 0; e?.cause && i < 5; i++) e = e.cause as typeof e;
+  return { code: e?.code, message: e?.message };
 }
 
 export const notFound = (what = 'That') => new HttpError(404, 'not_found', `${what} was not found.`);

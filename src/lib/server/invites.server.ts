@@ -5,11 +5,12 @@ import { newCaseReference } from '../case-reference';
 import type { Invite } from '../schemas/invite';
 import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
-import { db } from './db.server';
+import { transaction } from './db.server';
 import { invitationEmail } from './email-templates.server';
 import { HttpError } from './http';
 import { firm } from './office.server';
 import { refreshReadiness } from './readiness.server';
+import { readinessSettings } from './settings.server';
 import { signInLink } from './sign-in-links.server';
 import type { SessionUser } from './users.server';
 
@@ -19,7 +20,9 @@ import type { SessionUser } from './users.server';
  */
 export async function inviteCustomer(admin: SessionUser, input: Invite) {
   const email = input.customer.email;
-  const created = await db().transaction(async (tx) => {
+  // Read before the transaction opens: inside it, every query must go through tx.
+  const settings = await readinessSettings();
+  const created = await transaction(async (tx) => {
     let [customer] = await tx.select().from(users).where(eq(users.email, email)).for('update');
     if (customer && customer.role !== 'customer') {
       throw new HttpError(422, 'invalid', 'That e-mail belongs to a staff account.', { 'customer.email': 'This address belongs to a member of staff.' });
@@ -38,7 +41,7 @@ export async function inviteCustomer(admin: SessionUser, input: Invite) {
       }
     } else {
       [customer] = await tx.insert(users).values({ email, name: input.customer.name, role: 'customer', phone: input.customer.phone }).returning();
-      await audit({ actorId: admin.id, action: 'user.created', entity: 'user', entityId: customer!.id, after: { email, role: 'customer' } }, tx);
+      await audit(tx, { actorId: admin.id, action: 'user.created', entity: 'user', entityId: customer!.id, after: { email, role: 'customer' } });
     }
     const a = input.address ?? {};
     const checklist = {
@@ -58,8 +61,8 @@ export async function inviteCustomer(admin: SessionUser, input: Invite) {
         checklist,
       })
       .returning();
-    await audit({ caseId: row!.id, actorId: admin.id, action: 'case.created', entity: 'case', entityId: row!.id, after: { stage: 'invited', email, note: input.note ?? null } }, tx);
-    await refreshReadiness(row!.id, tx);
+    await audit(tx, { caseId: row!.id, actorId: admin.id, action: 'case.created', entity: 'case', entityId: row!.id, after: { stage: 'invited', email, note: input.note ?? null } });
+    await refreshReadiness(tx, row!.id, settings);
     return { row: row!, customer: customer! };
   });
   const office = await firm();

@@ -9,11 +9,12 @@ import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
 import { toCaseView, type CaseView } from './case-view.server';
 import { config } from './config.server';
-import { db } from './db.server';
+import { transaction } from './db.server';
 import { renderEmail } from './email-templates.server';
 import { HttpError } from './http';
 import { firm } from './office.server';
 import { refreshReadiness } from './readiness.server';
+import { readinessSettings } from './settings.server';
 import type { SessionUser } from './users.server';
 
 /** An outcome can be recorded only while the survey is booked. */
@@ -29,7 +30,9 @@ export async function recordOutcome(actor: SessionUser, row: CaseRow, body: Outc
   if (row.stage !== outcomeStage) {
     throw new HttpError(409, 'conflict', `The outcome is recorded while the survey is booked; this case is ${stageLabels[row.stage as StageId]}.`, undefined, { stage: row.stage });
   }
-  const saved = await db().transaction(async (tx) => {
+  // Read before the transaction opens: inside it, every query must go through tx.
+  const settings = await readinessSettings();
+  const saved = await transaction(async (tx) => {
     const [moved] = await tx
       .update(cases)
       .set({ stage: 'surveyed', updatedAt: new Date() })
@@ -46,10 +49,10 @@ export async function recordOutcome(actor: SessionUser, row: CaseRow, body: Outc
       recordedAt: new Date(),
     };
     await tx.insert(surveyOutcomes).values({ caseId: row.id, ...values }).onConflictDoUpdate({ target: surveyOutcomes.caseId, set: values });
-    await audit({ caseId: row.id, actorId: actor.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: outcomeStage }, after: { stage: 'surveyed', outcome: body.outcome } }, tx);
-    await audit({ caseId: row.id, actorId: actor.id, action: 'survey.recorded', entity: 'survey_outcome', entityId: row.id, after: { ...values, recordedAt: values.recordedAt.toISOString() } }, tx);
+    await audit(tx, { caseId: row.id, actorId: actor.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: outcomeStage }, after: { stage: 'surveyed', outcome: body.outcome } });
+    await audit(tx, { caseId: row.id, actorId: actor.id, action: 'survey.recorded', entity: 'survey_outcome', entityId: row.id, after: { ...values, recordedAt: values.recordedAt.toISOString() } });
     // The checks now read the confirmed earthing and fuse in place of the customer's answers.
-    await refreshReadiness(row.id, tx);
+    await refreshReadiness(tx, row.id, settings);
     const [fresh] = await tx.select().from(cases).where(eq(cases.id, row.id));
     return fresh!;
   });

@@ -29,6 +29,7 @@ import { listNotes } from './case-records.server';
 import { findVisibleCase } from './cases.server';
 import { db } from './db.server';
 import { computeReadiness } from './readiness.server';
+import { readinessSettings } from './settings.server';
 import type { SessionUser } from './users.server';
 
 export type PackAnswer = { path: string; label: string; value: string | null; confirmed?: string };
@@ -172,7 +173,7 @@ export async function findPackCase(user: SessionUser, id: string): Promise<CaseR
 export async function gatherPack(row: CaseRow): Promise<Pack> {
   const checklist = (row.checklist ?? {}) as Checklist;
   const [readiness, people, uploadRows, notes, outcome] = await Promise.all([
-    computeReadiness(row),
+    readinessSettings().then((settings) => computeReadiness(db(), row, settings)),
     peopleOf(row),
     uploadRowsOf(row.id),
     listNotes(row.id),

@@ -9,16 +9,15 @@ import { db } from './db.server';
 import { refreshSearchTextSql } from '../../db/search-text';
 import { readinessSettings, todayInGb } from './settings.server';
 
-type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
-type Conn = Tx | ReturnType<typeof db>;
+import type { Conn } from './db.server';
 
-
-export async function uploadSummaries(caseId: string, conn: Conn = db()): Promise<UploadSummary[]> {
+/** The case's uploads as the documents check reads them. */
+export async function uploadSummaries(conn: Conn, caseId: string): Promise<UploadSummary[]> {
   return conn.select({ kind: uploads.kind, status: uploads.status, reason: uploads.reason }).from(uploads).where(eq(uploads.caseId, caseId));
 }
 
 /** What the survey confirmed on site, if an outcome has been recorded. */
-export async function siteFindings(caseId: string, conn: Conn = db()): Promise<SiteFindings | null> {
+export async function siteFindings(conn: Conn, caseId: string): Promise<SiteFindings | null> {
   const [found] = await conn
     .select({ confirmedEarthing: surveyOutcomes.confirmedEarthing, confirmedFuseAmps: surveyOutcomes.confirmedFuseAmps })
     .from(surveyOutcomes)
@@ -29,13 +28,15 @@ export async function siteFindings(caseId: string, conn: Conn = db()): Promise<S
 /**
  * Readiness for one case as it stands in the database now. Values the surveyor confirmed on
  * site replace the customer's answers, and the checks resting on them are marked confirmedOnSite.
+ * Every query goes through `conn`; the settings are read by the caller (before any transaction
+ * opens), so a transaction never waits for a second pool connection.
+ *
+ * @example const r = await computeReadiness(db(), row, await readinessSettings());
  */
-export async function computeReadiness(
-  row: Pick<CaseRow, 'id' | 'checklist'>,
-  conn: Conn = db(),
-  known?: ReadinessSettings,
-): Promise<ReadinessResult> {
-  const [summaries, settings, findings] = await Promise.all([uploadSummaries(row.id, conn), known ?? readinessSettings(), siteFindings(row.id, conn)]);
+export async function computeReadiness(conn: Conn, row: Pick<CaseRow, 'id' | 'checklist'>, settings: ReadinessSettings): Promise<ReadinessResult> {
+  // One after the other: a transaction's queries share one connection anyway.
+  const summaries = await uploadSummaries(conn, row.id);
+  const findings = await siteFindings(conn, row.id);
   const answers = withSiteFindings(row.checklist as ChecklistAnswers, findings);
   const result = runChecks({ answers, uploads: summaries, settings, today: todayInGb() });
   return { ...result, checks: markConfirmedOnSite(result.checks, findings) };
@@ -43,12 +44,14 @@ export async function computeReadiness(
 
 /**
  * Recomputes and stores the readiness of one case; call it inside the transaction that changed
- * the answers or uploads so the stored light never disagrees with them.
+ * the answers or uploads (passing that transaction) so the stored light never disagrees with them.
+ *
+ * @example const settings = await readinessSettings(); await transaction((tx) => refreshReadiness(tx, id, settings));
  */
-export async function refreshReadiness(caseId: string, conn: Conn = db(), settings?: ReadinessSettings): Promise<ReadinessResult | undefined> {
+export async function refreshReadiness(conn: Conn, caseId: string, settings: ReadinessSettings): Promise<ReadinessResult | undefined> {
   const [row] = await conn.select({ id: cases.id, checklist: cases.checklist }).from(cases).where(eq(cases.id, caseId));
   if (!row) return undefined;
-  const result = await computeReadiness(row, conn, settings);
+  const result = await computeReadiness(conn, row, settings);
   await conn
     .update(cases)
     .set({
@@ -71,6 +74,6 @@ export async function refreshAllOpenCases(): Promise<number> {
     .where(notInArray(cases.stage, ['surveyed', 'withdrawn']));
   // Read the settings once for the whole batch, not once per case.
   const settings = await readinessSettings();
-  for (const { id } of ids) await refreshReadiness(id, db(), settings);
+  for (const { id } of ids) await refreshReadiness(db(), id, settings);
   return ids.length;
 }

@@ -5,9 +5,10 @@ import { uploadKindInfo } from '../schemas/uploads';
 import { uploadKindLabels } from '../readiness/upload-status';
 import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
-import { db } from './db.server';
+import { db, transaction } from './db.server';
 import { rejectionEmail } from './email-templates.server';
 import { refreshReadiness } from './readiness.server';
+import { readinessSettings } from './settings.server';
 import { signInLink } from './sign-in-links.server';
 import { toUploadItem } from './uploads.server';
 import type { SessionUser } from './users.server';
@@ -15,17 +16,16 @@ import type { SessionUser } from './users.server';
 type UploadRow = typeof uploads.$inferSelect;
 
 export async function reviewUpload(admin: SessionUser, row: UploadRow, caseRow: CaseRow, decision: 'accepted' | 'rejected', reason?: string) {
-  const saved = await db().transaction(async (tx) => {
+  // Read before the transaction opens: inside it, every query must go through tx.
+  const settings = await readinessSettings();
+  const saved = await transaction(async (tx) => {
     const [updated] = await tx
       .update(uploads)
       .set({ status: decision, reason: decision === 'rejected' ? reason! : null, reviewedBy: admin.id, reviewedAt: new Date() })
       .where(eq(uploads.id, row.id))
       .returning();
-    await audit(
-      { caseId: row.caseId, actorId: admin.id, action: `upload.${decision}`, entity: 'upload', entityId: row.id, before: { status: row.status, reason: row.reason }, after: { status: decision, reason: reason ?? null } },
-      tx,
-    );
-    await refreshReadiness(row.caseId, tx);
+    await audit(tx, { caseId: row.caseId, actorId: admin.id, action: `upload.${decision}`, entity: 'upload', entityId: row.id, before: { status: row.status, reason: row.reason }, after: { status: decision, reason: reason ?? null } });
+    await refreshReadiness(tx, row.caseId, settings);
     return updated!;
   });
   if (decision === 'rejected') {

@@ -35,7 +35,7 @@ export async function inviteStaff(admin: SessionUser, input: { name: string; ema
   const [existing] = await db().select().from(users).where(eq(users.email, input.email));
   if (existing) throw new HttpError(409, 'conflict', `${input.email} already has an account.`, { email: 'Already has an account.' });
   const [user] = await db().insert(users).values({ ...input, role: input.role }).returning();
-  await audit({ actorId: admin.id, action: 'user.created', entity: 'user', entityId: user!.id, after: { email: input.email, role: input.role } });
+  await audit(db(), { actorId: admin.id, action: 'user.created', entity: 'user', entityId: user!.id, after: { email: input.email, role: input.role } });
   const token = randomBytes(32).toString('hex');
   await db()
     .insert(verificationTokens)
@@ -67,7 +67,7 @@ export async function setPasswordWithToken(email: string, token: string, passwor
     .where(and(eq(users.email, email.toLowerCase()), inArray(users.role, ['admin', 'surveyor'])))
     .returning();
   if (!user) throw new HttpError(400, 'bad_request', 'That staff account no longer exists.');
-  await audit({ actorId: user.id, action: 'user.password_set', entity: 'user', entityId: user.id });
+  await audit(db(), { actorId: user.id, action: 'user.password_set', entity: 'user', entityId: user.id });
 }
 
 export async function setStaffActive(admin: SessionUser, id: string, active: boolean) {
@@ -75,6 +75,6 @@ export async function setStaffActive(admin: SessionUser, id: string, active: boo
   const [before] = await db().select().from(users).where(and(eq(users.id, id), inArray(users.role, ['admin', 'surveyor'])));
   if (!before) throw new HttpError(404, 'not_found', 'That staff account was not found.');
   const [user] = await db().update(users).set({ active }).where(eq(users.id, id)).returning();
-  await audit({ actorId: admin.id, action: active ? 'user.activated' : 'user.deactivated', entity: 'user', entityId: id, before: { active: before.active }, after: { active } });
+  await audit(db(), { actorId: admin.id, action: active ? 'user.activated' : 'user.deactivated', entity: 'user', entityId: id, before: { active: before.active }, after: { active } });
   return { id: user!.id, name: user!.name, email: user!.email, role: user!.role, active: user!.active };
 }

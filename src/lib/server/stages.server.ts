@@ -7,12 +7,12 @@ import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
 import { toCaseView } from './case-view.server';
 import { config } from './config.server';
-import { db } from './db.server';
+import { db, transaction } from './db.server';
 import { surveyBookedEmail } from './email-templates.server';
 import { HttpError } from './http';
 import { firm } from './office.server';
 import { computeReadiness } from './readiness.server';
-import { todayInGb } from './settings.server';
+import { readinessSettings, todayInGb } from './settings.server';
 import type { SessionUser } from './users.server';
 
 /**
@@ -28,7 +28,7 @@ export async function moveStage(actor: SessionUser, row: CaseRow, move: StageMov
   const extra: Partial<CaseRow> = {};
   const note: Record<string, unknown> = {};
   if (move.to === 'ready_for_survey') {
-    const readiness = await computeReadiness(row);
+    const readiness = await computeReadiness(db(), row, await readinessSettings());
     const reds = readiness.checks.filter((c) => c.light === 'red');
     if (reds.length > 0 && !move.overrideReason) {
       throw new HttpError(409, 'conflict', 'Checks are red: fix them, or override with a written reason.', { overrideReason: 'Needed while checks are red.' }, {
@@ -54,14 +54,14 @@ export async function moveStage(actor: SessionUser, row: CaseRow, move: StageMov
     Object.assign(extra, { surveyorId: surveyor!.id, surveyDate: move.surveyDate! });
     Object.assign(note, { surveyorId: surveyor!.id, surveyDate: move.surveyDate });
   }
-  const saved = await db().transaction(async (tx) => {
+  const saved = await transaction(async (tx) => {
     const [updated] = await tx
       .update(cases)
       .set({ stage: move.to, updatedAt: new Date(), ...extra })
       .where(and(eq(cases.id, row.id), eq(cases.stage, from)))
       .returning();
     if (!updated) throw new HttpError(409, 'conflict', 'The case moved while you were looking at it. Reload and try again.', undefined, { allowed: [] });
-    await audit({ caseId: row.id, actorId: actor.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: from }, after: { stage: move.to, ...note } }, tx);
+    await audit(tx, { caseId: row.id, actorId: actor.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: from }, after: { stage: move.to, ...note } });
     return updated;
   });
   if (move.to === 'survey_booked') await tellCustomerSurveyBooked(actor, saved, surveyor!.name ?? 'Our surveyor');

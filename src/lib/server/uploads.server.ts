@@ -1,6 +1,6 @@
 // Server-only: receiving, re-encoding, storing, serving and deleting evidence uploads.
 // The body is streamed to a temporary file and cut off at the limit; images are decoded and
-// re-encoded so no metadata survives; a row commits before the file moves into storage.
+// re-encoded so no metadata survives; the file moves into storage before its row commits.
 import { createHash, randomUUID } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import { mkdir, open, rm, type FileHandle } from 'node:fs/promises';
@@ -31,9 +31,10 @@ import { audit } from './audit.server';
 import { editableStages } from './case-view.server';
 import { findVisibleCase } from './cases.server';
 import { config } from './config.server';
-import { db } from './db.server';
+import { db, transaction } from './db.server';
 import { HttpError, notFound } from './http';
 import { refreshReadiness } from './readiness.server';
+import { readinessSettings } from './settings.server';
 import { uploadStorage } from './storage/index.server';
 import type { SessionUser } from './users.server';
 
@@ -519,55 +520,55 @@ async function inImageSlot<T>(work: () => Promise<T>): Promise<T> {
   }
 }
 
-/** Commits the row (with its audit entry), then moves the files into storage; undoes the row if that fails. */
+/**
+ * Moves the files into storage, then commits the row (with its audit entry); removes the files
+ * again if the row does not commit. Killed in between, the process leaves files without a row,
+ * never a row without its file: the storage sweep (storage-sweep.server.ts) removes such files
+ * after its grace period.
+ */
 async function keep(user: SessionUser, caseRow: CaseRow, kind: UploadKind, originalName: string | null, p: Prepared): Promise<UploadItem> {
   const id = randomUUID();
   const shard = id.slice(0, 2);
   const storageKey = `${shard}/${id}.${extensionOf(p.type)}`;
   const thumbKey = p.thumb ? `${shard}/${id}-thumb.webp` : null;
-  const row = await db().transaction(async (tx) => {
-    const [inserted] = await tx
-      .insert(uploads)
-      .values({
-        id,
-        caseId: caseRow.id,
-        kind,
-        mimeType: p.type,
-        sizeBytes: p.bytes,
-        sha256: p.sha256,
-        width: p.width,
-        height: p.height,
-        originalName,
-        uploadedBy: user.id,
-        storageKey,
-        thumbKey,
-      })
-      .returning();
-    await audit(
-      { caseId: caseRow.id, actorId: user.id, action: 'upload.added', entity: 'upload', entityId: id, after: auditView(inserted!) },
-      tx,
-    );
-    if (user.role === 'customer') {
-      await tx.update(cases).set({ lastCustomerActivityAt: new Date() }).where(eq(cases.id, caseRow.id));
-    }
-    // The documents check counts this file, so the stored light moves with it.
-    await refreshReadiness(caseRow.id, tx);
-    return inserted!;
-  });
   const storage = uploadStorage();
+  const removeStored = () => Promise.all([storage.delete(storageKey), thumbKey ? storage.delete(thumbKey) : null]).catch(() => {});
+  // Read before the transaction opens: inside it, every query must go through tx.
+  const settings = await readinessSettings();
   try {
     await storage.put(storageKey, { file: p.main.path });
     if (thumbKey && p.thumb) await storage.put(thumbKey, { file: p.thumb.path });
-  } catch (err) {
-    await Promise.all([storage.delete(storageKey), thumbKey ? storage.delete(thumbKey) : null]).catch(() => {});
-    await db().transaction(async (tx) => {
-      await tx.delete(uploads).where(eq(uploads.id, id));
-      await audit({ caseId: caseRow.id, actorId: user.id, action: 'upload.discarded', entity: 'upload', entityId: id, before: auditView(row) }, tx);
-      await refreshReadiness(caseRow.id, tx);
+    const row = await transaction(async (tx) => {
+      const [inserted] = await tx
+        .insert(uploads)
+        .values({
+          id,
+          caseId: caseRow.id,
+          kind,
+          mimeType: p.type,
+          sizeBytes: p.bytes,
+          sha256: p.sha256,
+          width: p.width,
+          height: p.height,
+          originalName,
+          uploadedBy: user.id,
+          storageKey,
+          thumbKey,
+        })
+        .returning();
+      await audit(tx, { caseId: caseRow.id, actorId: user.id, action: 'upload.added', entity: 'upload', entityId: id, after: auditView(inserted!) });
+      if (user.role === 'customer') {
+        await tx.update(cases).set({ lastCustomerActivityAt: new Date() }).where(eq(cases.id, caseRow.id));
+      }
+      // The documents check counts this file, so the stored light moves with it.
+      await refreshReadiness(tx, caseRow.id, settings);
+      return inserted!;
     });
+    return toUploadItem(row);
+  } catch (err) {
+    await removeStored();
     throw err;
   }
-  return toUploadItem(row);
 }
 
 const auditView = (row: UploadRow) => ({
@@ -646,16 +647,18 @@ export async function deleteUpload(user: SessionUser, row: UploadRow, caseRow: C
     throw new HttpError(403, 'forbidden', 'Only the customer who owns this case can remove its uploads; the office rejects them instead.');
   }
   if (!editableStages.includes(caseRow.stage)) throw refuse.locked();
-  const deleted = await db().transaction(async (tx) => {
+  // Read before the transaction opens: inside it, every query must go through tx.
+  const settings = await readinessSettings();
+  const deleted = await transaction(async (tx) => {
     // Conditional delete, so an office accept that lands first wins.
     const [gone] = await tx
       .delete(uploads)
       .where(and(eq(uploads.id, row.id), ne(uploads.status, 'accepted')))
       .returning();
     if (!gone) return undefined;
-    await audit({ caseId: row.caseId, actorId: user.id, action: 'upload.deleted', entity: 'upload', entityId: row.id, before: auditView(gone) }, tx);
+    await audit(tx, { caseId: row.caseId, actorId: user.id, action: 'upload.deleted', entity: 'upload', entityId: row.id, before: auditView(gone) });
     await tx.update(cases).set({ lastCustomerActivityAt: sql`now()` }).where(eq(cases.id, row.caseId));
-    await refreshReadiness(row.caseId, tx);
+    await refreshReadiness(tx, row.caseId, settings);
     return gone;
   });
   if (!deleted) {

@@ -3,6 +3,7 @@ import { requireRole } from '../../lib/server/auth';
 import { readinessSettings, reminderSettings, saveSetting } from '../../lib/server/settings.server';
 import { refreshAllOpenCases } from '../../lib/server/readiness.server';
 import { audit } from '../../lib/server/audit.server';
+import { db } from '../../lib/server/db.server';
 import { settingsUpdateSchema } from '../../lib/schemas/settings';
 import { defaultReadinessSettings, settingDescriptions } from '../../lib/readiness';
 
@@ -23,7 +24,7 @@ export const PUT = api(async (ctx) => {
   const before = await current();
   if (body.readiness) await saveSetting('readiness', { ...before.readiness, ...body.readiness }, admin.id);
   if (body.reminders) await saveSetting('reminders', body.reminders, admin.id);
-  await audit({ actorId: admin.id, action: 'settings.updated', entity: 'settings', before: { readiness: before.readiness, reminders: before.reminders }, after: body });
+  await audit(db(), { actorId: admin.id, action: 'settings.updated', entity: 'settings', before: { readiness: before.readiness, reminders: before.reminders }, after: body });
   const recomputed = body.readiness ? await refreshAllOpenCases() : 0;
   return json({ ...(await current()), recomputed });
 });
