@@ -3,7 +3,7 @@
 import { defineMiddleware, sequence } from 'astro:middleware';
 import { getSession } from 'auth-astro/server';
 import { isDatabaseUnavailable } from './lib/server/db-errors.server';
-import { databaseUnavailable, errorResponse, HttpError } from './lib/server/http';
+import { databaseUnavailable, errorResponse, HttpError, UNAVAILABLE_HEADER } from './lib/server/http';
 import { signInLimits } from './lib/server/rate-limit.server';
 import { findActiveUser, normaliseEmail } from './lib/server/users.server';
 
@@ -60,8 +60,13 @@ const rateLimit = defineMiddleware(async (ctx, next) => {
   return res;
 });
 
+const failedRequests = new WeakSet<Request>();
+
 const auth = defineMiddleware(async (ctx, next) => {
   ctx.locals.user = null;
+  // Astro renders src/pages/500.astro for the same request through this middleware again: asking
+  // the database a second time would fail again and lose the error the page explains.
+  if (failedRequests.has(ctx.request)) return next();
   if (ctx.url.pathname.startsWith('/api/auth/') || ctx.url.pathname.startsWith('/_astro/')) return next();
   const session = await getSession(ctx.request).catch(() => null);
   const id = (session?.user as { id?: string } | undefined)?.id;
@@ -70,11 +75,23 @@ const auth = defineMiddleware(async (ctx, next) => {
       ctx.locals.user = (await findActiveUser(id)) ?? null;
     } catch (err) {
       // API callers get the JSON 503; pages fall through to src/pages/500.astro, which says 503 kindly.
-      if (isDatabaseUnavailable(err) && ctx.url.pathname.startsWith('/api/')) return errorResponse(databaseUnavailable());
+      if (!isDatabaseUnavailable(err)) throw err;
+      if (ctx.url.pathname.startsWith('/api/')) return errorResponse(databaseUnavailable());
+      failedRequests.add(ctx.request);
       throw err;
     }
   }
   return next();
 });
 
-export const onRequest = sequence(rateLimit, auth);
+// Astro always answers its 500 page with status 500; when that page says the database is
+// unreachable, this turns it into the 503 (with Retry-After) that it really is.
+const unavailableStatus = defineMiddleware(async (_ctx, next) => {
+  const res = await next();
+  if (res.status !== 500 || !res.headers.has(UNAVAILABLE_HEADER)) return res;
+  const headers = new Headers(res.headers);
+  headers.delete(UNAVAILABLE_HEADER);
+  return new Response(res.body, { status: 503, statusText: 'Service Unavailable', headers });
+});
+
+export const onRequest = sequence(unavailableStatus, rateLimit, auth);

@@ -218,6 +218,10 @@ export class AutosaveQueue {
 
   private onConflict(current: CaseView) {
     this.version = current.version;
+    // The server answered, so the link works: go on at once with the new version. (Left at its
+    // count, a failure before the conflict — a save that landed but whose answer was lost —
+    // stopped the queue here with the edit unsent and no retry scheduled.)
+    this.failures = 0;
     this.conflicts += 1;
     this.options.listener.conflict(current, Object.keys(this.edits));
     if (this.conflicts >= MAX_QUICK_CONFLICTS) this.onFailed();

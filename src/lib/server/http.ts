@@ -40,6 +40,9 @@ export function errorResponse(err: HttpError): Response {
   return json(body, err.status, err.status === 503 ? { 'Retry-After': String(err.extra?.retryAfter ?? RETRY_AFTER_SECONDS) } : {});
 }
 
+/** Set by src/pages/500.astro when the database was the trouble; src/middleware.ts makes that page a 503. */
+export const UNAVAILABLE_HEADER = 'x-groundwork-unavailable';
+
 /** The 503 an unreachable or timed-out database becomes. */
 export const databaseUnavailable = () =>
   new HttpError(503, 'unavailable', 'We are having trouble reaching our database. Your answers are safe: please try again in a minute.', undefined, {
