@@ -4,6 +4,7 @@ import { execFileSync, spawn } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import { join, resolve } from 'node:path';
+import { pathToFileURL } from 'node:url';
 import net from 'node:net';
 import { ensureCluster, ensurePostgresInstalled, startCluster, stopCluster, usableDataDir } from './postgres.mjs';
 
@@ -122,6 +123,14 @@ export function build(outDir = 'dist', env = {}) {
     env: { ...process.env, ...env, GROUNDWORK_OUT_DIR: outDir },
   });
   return join(root, outDir, 'server', 'entry.mjs');
+}
+
+/**
+ * The node arguments that start the built app, with the server time limits of server-timeouts.mjs.
+ * @example startChild('app', 'node', appArgs(entry), { env })
+ */
+export function appArgs(entry) {
+  return ['--import', pathToFileURL(join(root, 'scripts', 'lib', 'server-timeouts.mjs')).href, entry];
 }
 
 export function runTsx(script, env) {

@@ -3,7 +3,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { build, freePort, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp } from './stack.mjs';
+import { appArgs, build, freePort, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp } from './stack.mjs';
 
 export async function startThrowawayStack({ name = 'test', seed = true, worker = true } = {}) {
   const scratch = mkdtempSync(join(tmpdir(), `groundwork-${name}-`));
@@ -42,6 +42,7 @@ export async function startThrowawayStack({ name = 'test', seed = true, worker =
       GROUNDWORK_TEST: '1',
       // Tests drive reminder sweeps themselves; the background schedule stays out of their way.
       REMINDER_SWEEP_CRON: '0 4 1 1 *',
+      STORAGE_SWEEP_CRON: '0 4 1 1 *',
       MAIL_API_URL: `http://127.0.0.1:${mailHttpPort}`,
       // Every test signs in from 127.0.0.1: the per-address limits would trip on the suite
       // itself. The per-e-mail limits stay as in production and are tested.
@@ -55,7 +56,7 @@ export async function startThrowawayStack({ name = 'test', seed = true, worker =
     });
     const entry = build(outDir, env);
     env.APP_ENTRY = entry;
-    startChild('app', 'node', [entry], { env, quiet: true });
+    startChild('app', 'node', appArgs(entry), { env, quiet: true });
     if (worker) startChild('worker', join(root, 'node_modules', '.bin', 'tsx'), ['scripts/worker.ts'], { env, quiet: true });
     await waitForHttp(`${appUrl}/api/health`);
     return { env, stop };

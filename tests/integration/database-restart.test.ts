@@ -11,9 +11,7 @@ import { drizzle } from 'drizzle-orm/postgres-js';
 import { eq } from 'drizzle-orm';
 import PgBoss from 'pg-boss';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-// @ts-expect-error plain JavaScript stack scripts, no type declarations
 import { ensureCluster, findPgBin, startCluster, stopCluster, usableDataDir } from '../../scripts/lib/postgres.mjs';
-// @ts-expect-error plain JavaScript stack scripts, no type declarations
 import { migrate, root } from '../../scripts/lib/stack.mjs';
 import * as schema from '../../src/db/schema';
 import { SWEEP_QUEUE } from '../../src/lib/server/reminders.server';
@@ -49,12 +47,12 @@ async function waitUntil<T>(what: string, probe: () => Promise<T | undefined>, t
 }
 
 beforeAll(async () => {
-  bin = findPgBin();
+  bin = findPgBin()!;
   scratch = mkdtempSync(join(tmpdir(), 'groundwork-restart-'));
   dataDir = usableDataDir(join(scratch, 'pg'), `groundwork-restart-pg-${process.pid}`);
   pgPort = await freePort();
-  ensureCluster({ bin, dataDir, password });
-  await startCluster({ bin, dataDir, port: pgPort, durable: false });
+  ensureCluster({ bin, dataDir, password, log: () => {} });
+  await startCluster({ bin, dataDir, port: pgPort, durable: false, log: () => {} });
   const admin = postgres({ host: '127.0.0.1', port: pgPort, user: 'postgres', password, database: 'postgres', onnotice: () => {} });
   await admin.unsafe('create database groundwork_restart');
   await admin.end();
@@ -125,7 +123,7 @@ describe('PostgreSQL stopped and started mid-traffic', () => {
     expect(html).toContain('try again in a minute');
     expect((await fetch(`${appUrl}/api/health`)).status).toBe(503);
 
-    await startCluster({ bin, dataDir, port: pgPort, durable: false });
+    await startCluster({ bin, dataDir, port: pgPort, durable: false, log: () => {} });
     // The same app process recovers by itself: new connections replace the dead ones.
     const back = await waitUntil('a save after the restart', async () => {
       const r = await save(4);

@@ -60,7 +60,8 @@ const SNIFF_BYTES = 4100;
 /** HEIC (iPhone) photos only if this machine's libvips has an HEVC decoder. */
 export const heicDecodable = Boolean(sharp.format.heif?.input?.fileSuffix?.includes('.heic'));
 
-const scratchDir = () => join(resolve(config.uploadDir), '.incoming');
+/** Where uploads are written while they arrive; always the local disk, whatever the storage. */
+export const scratchDir = () => join(resolve(config.uploadDir), '.incoming');
 
 // ---- customer-facing refusals ---------------------------------------------------------------
 

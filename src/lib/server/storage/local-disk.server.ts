@@ -1,8 +1,8 @@
 // Server-only: the Storage interface on the local disk, one file per key under a root folder.
 import { createReadStream } from 'node:fs';
-import { copyFile, link, mkdir, rm, stat, unlink, writeFile } from 'node:fs/promises';
+import { copyFile, link, mkdir, opendir, rm, stat, unlink, writeFile } from 'node:fs/promises';
 import { dirname, join, resolve, sep } from 'node:path';
-import { assertSafeKey, type PutSource, type Storage, type StoredObject } from './storage';
+import { assertSafeKey, isSafeKey, type PutSource, type Storage, type StoredObject } from './storage';
 
 export class LocalDiskStorage implements Storage {
   readonly root: string;
@@ -51,6 +51,35 @@ export class LocalDiskStorage implements Storage {
     } catch (err) {
       if (isMissing(err)) return false;
       throw err;
+    }
+  }
+
+  /** Walks the folders under the root; names that are not keys (such as `.incoming/`) are skipped. */
+  async *list(prefix = ''): AsyncIterable<{ key: string; size: number; modifiedAt: Date }> {
+    yield* this.walk('', prefix);
+  }
+
+  private async *walk(dir: string, prefix: string): AsyncGenerator<{ key: string; size: number; modifiedAt: Date }> {
+    let entries;
+    try {
+      entries = await opendir(dir ? join(this.root, dir) : this.root);
+    } catch (err) {
+      if (isMissing(err)) return;
+      throw err;
+    }
+    for await (const entry of entries) {
+      const key = dir ? `${dir}/${entry.name}` : entry.name;
+      if (!isSafeKey(key)) continue;
+      // Only descend into folders that can still hold keys with the prefix.
+      if (entry.isDirectory() && (prefix.startsWith(`${key}/`) || key.startsWith(prefix))) yield* this.walk(key, prefix);
+      else if (entry.isFile() && key.startsWith(prefix)) {
+        try {
+          const info = await stat(join(this.root, key));
+          yield { key, size: info.size, modifiedAt: info.mtime };
+        } catch (err) {
+          if (!isMissing(err)) throw err; // removed while we walked: nothing to list
+        }
+      }
     }
   }
 }

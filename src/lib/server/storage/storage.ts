@@ -19,6 +19,11 @@ export interface Storage {
   /** Removes an object; removing one that is not there is not an error. */
   delete(key: string): Promise<void>;
   exists(key: string): Promise<boolean>;
+  /**
+   * Every stored object whose key starts with `prefix` (all when omitted), in no set order, for
+   * the sweep that removes files no row refers to. Temporary files are not objects: never listed.
+   */
+  list(prefix?: string): AsyncIterable<{ key: string; size: number; modifiedAt: Date }>;
 }
 
 // Keys are made by the app (ids, never user input), but refuse anything path-like regardless.
@@ -29,5 +34,10 @@ const KEY = /^[a-z0-9][a-z0-9-]*(\/[a-z0-9][a-z0-9.-]*)*$/;
  * @example assertSafeKey('../etc/passwd') // throws
  */
 export function assertSafeKey(key: string): void {
-  if (!KEY.test(key) || key.includes('..') || key.length > 200) throw new Error(`Unsafe storage key: ${JSON.stringify(key)}`);
+  if (!isSafeKey(key)) throw new Error(`Unsafe storage key: ${JSON.stringify(key)}`);
+}
+
+/** @example isSafeKey('.incoming/x.part') // false */
+export function isSafeKey(key: string): boolean {
+  return KEY.test(key) && !key.includes('..') && key.length <= 200;
 }
