@@ -5,7 +5,8 @@ import { mergeChecklist, sectionProgress, type Checklist, type ChecklistPatch } 
 import { audit } from './audit.server';
 import { editableStages, toCaseView } from './case-view.server';
 import { transaction } from './db.server';
-import { refreshReadiness } from './readiness.server';
+import { computeReadiness, readinessColumns } from './readiness.server';
+import { refreshSearchTextSql } from '../../db/search-text';
 import { readinessSettings } from './settings.server';
 import { HttpError } from './http';
 import type { SessionUser } from './users.server';
@@ -49,12 +50,15 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
     if (Object.keys(changes).length === 0) return toCaseView(current);
     const about = after.about ?? {};
     const isCustomer = user.role === 'customer';
+    // Readiness of the new answers, stored by the same UPDATE: fewer round trips while the row is locked.
+    const readiness = await computeReadiness(tx, { id: row.id, checklist: after }, settings);
     const [saved] = await tx
       .update(cases)
       .set({
         checklist: after,
         version: sql`${cases.version} + 1`,
         updatedAt: new Date(),
+        ...readinessColumns(readiness),
         // The office's queue reads the address from the case's own columns.
         ...('about' in patch
           ? { addressLine1: about.addressLine1 ?? null, addressLine2: about.addressLine2 ?? null, town: about.town ?? null, postcode: about.postcode ?? null }
@@ -65,20 +69,20 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
       .where(and(eq(cases.id, row.id)))
       .returning();
     await audit(tx, {
-        caseId: row.id,
-        actorId: user.id,
-        action: 'checklist.updated',
-        entity: 'case',
-        entityId: row.id,
-        before: Object.fromEntries(Object.entries(changes).map(([k, [b]]) => [k, b])),
-        after: Object.fromEntries(Object.entries(changes).map(([k, [, a]]) => [k, a])),
-      });
-    await refreshReadiness(tx, row.id, settings);
+      caseId: row.id,
+      actorId: user.id,
+      action: 'checklist.updated',
+      entity: 'case',
+      entityId: row.id,
+      before: Object.fromEntries(Object.entries(changes).map(([k, [b]]) => [k, b])),
+      after: Object.fromEntries(Object.entries(changes).map(([k, [, a]]) => [k, a])),
+    });
+    // The office's search reads the postcode (about) and the MPAN (supply); nothing else here feeds it.
+    if ('about' in patch || 'supply' in patch) await tx.execute(refreshSearchTextSql(row.id));
     if (current.stage !== saved!.stage) {
       await audit(tx, { caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: current.stage }, after: { stage: saved!.stage } });
     }
-    const [fresh] = await tx.select().from(cases).where(eq(cases.id, row.id));
-    return toCaseView(fresh!);
+    return toCaseView(saved!);
   });
 }
 

@@ -52,18 +52,20 @@ export async function refreshReadiness(conn: Conn, caseId: string, settings: Rea
   const [row] = await conn.select({ id: cases.id, checklist: cases.checklist }).from(cases).where(eq(cases.id, caseId));
   if (!row) return undefined;
   const result = await computeReadiness(conn, row, settings);
-  await conn
-    .update(cases)
-    .set({
-      readinessLight: result.light,
-      readinessRank: lightRank[result.light],
-      readinessGaps: result.gapCount,
-      readinessChecks: result.checks,
-      readinessAt: new Date(),
-    })
-    .where(eq(cases.id, caseId));
+  await conn.update(cases).set(readinessColumns(result)).where(eq(cases.id, caseId));
   await conn.execute(refreshSearchTextSql(caseId));
   return result;
+}
+
+/** The stored readiness columns for a result, for an UPDATE that changes the answers too. */
+export function readinessColumns(result: ReadinessResult) {
+  return {
+    readinessLight: result.light,
+    readinessRank: lightRank[result.light],
+    readinessGaps: result.gapCount,
+    readinessChecks: result.checks,
+    readinessAt: new Date(),
+  };
 }
 
 /** After a settings change or a new day: recompute every open case. */
