@@ -20,7 +20,7 @@ export type ChaseResult = { caseId: string; sent: boolean; items: string[]; reas
  * E-mails the customer exactly what is missing or rejected, with a sign-in link, and records it.
  * A reminder passes its slot as dedupeKey so it cannot go twice.
  */
-export async function chaseCase(row: CaseRow, opts: { actorId: string | null; reminder?: boolean; dedupeKey?: string }): Promise<ChaseResult> {
+export async function chaseCase(row: CaseRow, opts: { actorId: string | null; reminder?: boolean; dedupeKey?: string; now?: Date }): Promise<ChaseResult> {
   const items = customerGaps(row.checklist as Checklist, await uploadSummaries(row.id)).map((g) => g.text);
   if (items.length === 0) return { caseId: row.id, sent: false, items, reason: 'Nothing is missing.' };
   if (row.stage === 'surveyed' || row.stage === 'withdrawn') return { caseId: row.id, sent: false, items, reason: 'The case is closed.' };
@@ -49,8 +49,8 @@ export async function chaseCase(row: CaseRow, opts: { actorId: string | null; re
  * The short text beside a chase e-mail, where the customer agreed to texts and it is not quiet
  * hours. A reminder's text takes the reminder's slot key, so one reminder never texts twice.
  */
-async function chaseByText(row: CaseRow, customer: User, count: number, firmName: string, opts: { actorId: string | null; reminder?: boolean; dedupeKey?: string }) {
-  const decision = await textDecisionFor(customer.id);
+async function chaseByText(row: CaseRow, customer: User, count: number, firmName: string, opts: { actorId: string | null; reminder?: boolean; dedupeKey?: string; now?: Date }) {
+  const decision = await textDecisionFor(customer.id, opts.now);
   if (!decision.send) return { sent: false, reason: decision.reason };
   // A link of its own: the e-mail's link works once, and either may be the one they open.
   const url = await signInLink(customer.email, { days: 7, next: `/my/cases/${row.id}` });

@@ -40,10 +40,10 @@ export async function casesDueReminder(now = new Date()): Promise<{ caseId: stri
 }
 
 /** Sends reminder number n for a case, at most once however often it is called. */
-export async function sendReminder(caseId: string, n: number) {
+export async function sendReminder(caseId: string, n: number, now = new Date()) {
   const [row] = await db().select().from(cases).where(eq(cases.id, caseId));
   if (!row || row.remindersSent >= n) return { sent: false, reason: 'Already sent.' };
-  return chaseCase(row, { actorId: null, reminder: true, dedupeKey: `reminder:${caseId}:${n}` });
+  return chaseCase(row, { actorId: null, reminder: true, dedupeKey: `reminder:${caseId}:${n}`, now });
 }
 
 /**
