@@ -80,7 +80,7 @@ export function VehicleStep({ caseId }: { caseId: string }) {
             // A plate the vehicle records hold has been issued, whatever its age identifier suggests.
             warning={lookup?.outcome.kind === 'found' ? null : vehicleWarning('registration', registration)}
             help="The number plate, for example AB12 CDE."
-            confirmation={<VehicleLookupNote state={lookup} />}
+            confirmation={lookup && lookup.outcome.kind !== 'off' ? <VehicleLookupNote state={lookup} /> : null}
           />
         )}
       </div>
