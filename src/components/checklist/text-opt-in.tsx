@@ -68,8 +68,8 @@ export function TextOptIn({ caseId }: { caseId: string }) {
       ) : (
         <>
           <p className="field-help mt-0">
-            We can text you as well as e-mail when something is still needed, with a link back to your checklist. Only between 9 am and 7 pm,
-            and never more than the e-mail reminders.{view.withdrawnAt ? ' You stopped texts earlier; you can turn them on again here.' : ''}
+            We can text you as well as e-mail when something is still needed, with a link back to your checklist. Never at night, and only
+            alongside an e-mail, never more often.{view.withdrawnAt ? ' You stopped texts earlier; you can turn them on again here.' : ''}
           </p>
           <div>
             <label htmlFor={`${id}-mobile`} className="field-label">Mobile number for texts</label>
