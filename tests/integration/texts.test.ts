@@ -7,6 +7,7 @@ import { newCustomer, newStaff } from '../helpers/people';
 import { receiptFor, replyFrom, textsTo, uniqueMobile, until } from '../helpers/services';
 import { sendReminder } from '../../src/lib/server/reminders.server';
 import { chaseCase } from '../../src/lib/server/chase.server';
+import { sendCaseText } from '../../src/lib/server/text-messages.server';
 import { signParams } from '../../fake-services/sms-server.mjs';
 
 // Against the fake SMS service (fake-services/sms-server.mjs), which speaks the provider's REST
@@ -88,6 +89,16 @@ describe('reminders by text', () => {
     const res = await phone.fetch(link);
     expect(res.status).toBe(302);
     expect(res.headers.get('location')).toBe(`${baseUrl}/my/cases/${c!.id}`);
+  });
+
+  it('a text under a used reminder key is never sent again, whatever the e-mail did', async () => {
+    const { case: c, user, mobile } = await optedInCustomer();
+    const text = { caseId: c!.id, userId: user.id, kind: 'reminder', mobile, text: 'Hello https://example.com/x?token=1', sentById: null, dedupeKey: `reminder:${c!.id}:9:text` };
+    expect(await sendCaseText(text)).toBe(true);
+    expect(await sendCaseText(text)).toBe(false);
+    await new Promise((r) => setTimeout(r, 200));
+    expect(await textsTo(mobile)).toHaveLength(1);
+    expect((await logFor(c!.id)).map((r) => r.text)).toEqual(['Hello [sign-in link]']);
   });
 
   it('never texts someone who has not opted in; the e-mail still goes', async () => {
