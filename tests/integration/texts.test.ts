@@ -134,6 +134,16 @@ describe('delivery receipts', () => {
     expect(channels).toContain('email:sent');
   });
 
+  it('a receipt that beats our own update finds its text by client-ref, and keeps its status', async () => {
+    const { case: c, user } = await optedInCustomer();
+    const [row] = await db.insert(schema.textLog).values({ caseId: c!.id, userId: user.id, kind: 'chase', mobile: '+447400000001', text: 'x' }).returning();
+    const params = { messageId: 'EARLY1', status: 'delivered', 'err-code': '0', 'client-ref': row!.id, msisdn: '447400000001', timestamp: String(Math.floor(Date.now() / 1000)), nonce: 'e1' };
+    const r = await fetch(`${baseUrl}/api/sms/status`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ ...params, sig: signParams(params, 'fake-signature-secret', 'sha256') }) });
+    expect(r.status).toBe(204);
+    const [after] = await db.select().from(schema.textLog).where(eq(schema.textLog.id, row!.id));
+    expect(after).toMatchObject({ providerId: 'EARLY1', status: 'delivered' });
+  });
+
   it('refuses an unsigned, mis-signed or stale receipt and changes nothing', async () => {
     const { case: c } = await optedInCustomer();
     await sendReminder(c!.id, 1, at(12));

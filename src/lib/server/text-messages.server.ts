@@ -1,7 +1,7 @@
 // Server-only: text messages about a case — the customer's consent, sending with a log row
 // written first, delivery receipts and STOP replies. Off (and harmless) when the SMS provider's
 // variables are unset: every function then answers "not sent" and the webhooks 404.
-import { and, desc, eq, isNull } from 'drizzle-orm';
+import { and, desc, eq, isNull, or, sql } from 'drizzle-orm';
 import { textConsents, textLog } from '../../db/schema';
 import { redactLinks, isStopReply, textDecision, type TextConsent, type TextDecision } from '../text-rules';
 import { audit } from './audit.server';
@@ -13,6 +13,8 @@ import type { SmsGateway, TextEvent } from './sms/gateway';
 import { vonageGateway } from './sms/vonage.server';
 
 let gateway: SmsGateway | null | undefined;
+
+const isUuid = (v: string | null): boolean => v !== null && /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(v);
 
 /** The configured gateway, or null when texts are switched off. */
 export function smsGateway(): SmsGateway | null {
@@ -99,7 +101,11 @@ export async function sendCaseText(input: { caseId: string; userId: string; kind
   if (!row) return false;
   try {
     const { providerId } = await sms.send({ to: input.mobile, text: input.text, reference: row.id });
-    await db().update(textLog).set({ providerId, status: 'submitted', statusAt: new Date() }).where(eq(textLog.id, row.id));
+    // A receipt that arrived first has already set a later status: keep it.
+    await db()
+      .update(textLog)
+      .set({ providerId, status: sql`case when ${textLog.status} = 'queued' then 'submitted' else ${textLog.status} end`, statusAt: sql`coalesce(${textLog.statusAt}, now())` })
+      .where(eq(textLog.id, row.id));
     return true;
   } catch (err) {
     // The e-mail has gone; a text the provider refused is history with its reason, not a crash.
@@ -114,8 +120,8 @@ export async function applyTextEvent(event: TextEvent): Promise<{ applied: boole
   if (event.type === 'status') {
     const updated = await db()
       .update(textLog)
-      .set({ status: event.status, statusDetail: event.detail, statusAt: new Date() })
-      .where(and(eq(textLog.providerId, event.providerId), eq(textLog.direction, 'outbound')))
+      .set({ providerId: event.providerId, status: event.status, statusDetail: event.detail, statusAt: new Date() })
+      .where(and(eq(textLog.direction, 'outbound'), isUuid(event.reference) ? or(eq(textLog.providerId, event.providerId), eq(textLog.id, event.reference!)) : eq(textLog.providerId, event.providerId)))
       .returning({ id: textLog.id });
     return { applied: updated.length > 0 };
   }

@@ -5,7 +5,7 @@ export type TextStatus = 'queued' | 'submitted' | 'delivered' | 'failed' | 'reje
 
 /** A delivery receipt or inbound reply, already checked to come from the provider. */
 export type TextEvent =
-  | { type: 'status'; providerId: string; status: TextStatus; detail: string | null }
+  | { type: 'status'; providerId: string; reference: string | null; status: TextStatus; detail: string | null }
   | { type: 'inbound'; providerId: string; from: string; text: string };
 
 export interface SmsGateway {

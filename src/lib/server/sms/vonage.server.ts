@@ -65,7 +65,8 @@ export function vonageGateway(settings: VonageSettings): SmsGateway {
         if (!params.messageId || !params.status) return null;
         const status = RECEIPT_STATUS[params.status.toLowerCase()] ?? 'submitted';
         const detail = params['err-code'] && params['err-code'] !== '0' ? `error ${params['err-code']}` : null;
-        return { type: 'status', providerId: params.messageId, status, detail };
+        // client-ref is our log row's id, sent with the text: it finds the row even if the receipt beats our own update.
+        return { type: 'status', providerId: params.messageId, reference: params['client-ref'] ?? null, status, detail };
       }
       if (!params.messageId || !params.msisdn || typeof params.text !== 'string') return null;
       return { type: 'inbound', providerId: params.messageId, from: `+${params.msisdn.replace(/^\+/, '')}`, text: params.text };
