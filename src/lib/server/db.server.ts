@@ -1,6 +1,6 @@
 // Server-only: one PostgreSQL pool for the process, shared by every query module, with the
 // time limits that turn a stuck database or a coding mistake into a 503 instead of a frozen
-// process (docs/decisions/008-timeouts-and-503.md).
+// process (docs/decisions/010-timeouts-and-503.md).
 import { AsyncLocalStorage } from 'node:async_hooks';
 import postgres from 'postgres';
 import { drizzle } from 'drizzle-orm/postgres-js';
