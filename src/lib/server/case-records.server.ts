@@ -44,8 +44,12 @@ export async function listAudit(caseId: string) {
     .limit(500);
 }
 
-export async function listEmails(caseId: string) {
-  return db()
+/**
+ * A case's e-mail history, newest first. The stored text has its sign-in links removed already;
+ * the office sees it, a surveyor only what was sent when (kind and subject), not its words.
+ */
+export async function listEmails(caseId: string, { withText }: { withText: boolean }) {
+  const rows = await db()
     .select({
       id: emailLog.id,
       kind: emailLog.kind,
@@ -59,4 +63,5 @@ export async function listEmails(caseId: string) {
     .leftJoin(author, eq(author.id, emailLog.sentById))
     .where(eq(emailLog.caseId, caseId))
     .orderBy(desc(emailLog.createdAt));
+  return withText ? rows : rows.map(({ id, kind, subject, createdAt }) => ({ id, kind, subject, createdAt }));
 }

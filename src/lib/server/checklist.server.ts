@@ -7,6 +7,9 @@ import { editableStages, toCaseView } from './case-view.server';
 import { db } from './db.server';
 import { refreshReadiness } from './readiness.server';
 import { HttpError } from './http';
+import { noteChangeSinceReady, tellOfficeOfChange } from './changes-since-ready.server';
+import { firm } from './office.server';
+import { fieldLabels } from '../field-labels';
 import type { SessionUser } from './users.server';
 
 /** Only the fields that really change, as { path: [before, after] }, for the audit trail. */
@@ -32,18 +35,19 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
   if (!editableStages.includes(row.stage)) {
     throw new HttpError(409, 'conflict', 'This case can no longer be changed. Please contact your installer.', undefined, { reason: 'locked' });
   }
-  return db().transaction(async (tx) => {
+  let changedAfterReady: string | null = null;
+  const view = await db().transaction(async (tx) => {
     const [current] = await tx.select().from(cases).where(eq(cases.id, row.id)).for('update');
     if (!current) throw new HttpError(404, 'not_found', 'That case was not found.');
     if (ifVersion !== null && current.version !== ifVersion) {
       throw new HttpError(409, 'conflict', 'These answers were changed on another device or tab. The newer answers are loaded.', undefined, {
-        current: toCaseView(current),
+        current: toCaseView(current, user.role),
       });
     }
     const before = current.checklist as Checklist;
     const after = mergeChecklist(before, patch);
     const changes = diff(before, after);
-    if (Object.keys(changes).length === 0) return toCaseView(current);
+    if (Object.keys(changes).length === 0) return toCaseView(current, user.role);
     const about = after.about ?? {};
     const isCustomer = user.role === 'customer';
     const [saved] = await tx
@@ -73,13 +77,26 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
       },
       tx,
     );
+    const detail = changedFieldWords(Object.keys(changes));
+    if (await noteChangeSinceReady(tx, user, row.id, { what: 'answers', detail })) changedAfterReady = detail;
     await refreshReadiness(row.id, tx);
     if (current.stage !== saved!.stage) {
       await audit({ caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: current.stage }, after: { stage: saved!.stage } }, tx);
     }
     const [fresh] = await tx.select().from(cases).where(eq(cases.id, row.id));
-    return toCaseView(fresh!);
+    return toCaseView(fresh!, user.role);
   });
+  if (changedAfterReady !== null) await tellOfficeOfChange(row, user, { what: 'answers', detail: changedAfterReady }, (await firm()).email);
+  return view;
+}
+
+/** "the main fuse rating, the earthing type" from changed paths such as supply.loads.showerKw. */
+function changedFieldWords(paths: string[]): string {
+  const label = (path: string) => {
+    for (let p = path; p.includes('.'); p = p.slice(0, p.lastIndexOf('.'))) if (fieldLabels[p]) return fieldLabels[p]!;
+    return path;
+  };
+  return [...new Set(paths.map(label))].join(', ');
 }
 
 export type Gap = { section: string; title: string; missing: string[] };
@@ -111,5 +128,5 @@ export async function submitCase(user: SessionUser, row: CaseRow, acknowledgeGap
     );
     return result;
   });
-  return { view: toCaseView(saved!), gaps };
+  return { view: toCaseView(saved!, user.role), gaps };
 }

@@ -2,6 +2,7 @@
 import type { APIContext } from 'astro';
 import type { ZodType, ZodTypeDef } from 'zod';
 import { zodIssuesToFields } from '../schemas/checklist';
+import { readCappedText } from './body-limit.server';
 
 export type ErrorCode =
   | 'bad_request'
@@ -9,6 +10,7 @@ export type ErrorCode =
   | 'forbidden'
   | 'not_found'
   | 'conflict'
+  | 'length_required'
   | 'payload_too_large'
   | 'unsupported_media_type'
   | 'invalid'
@@ -64,9 +66,11 @@ export async function parseJsonBody<T>(request: Request, schema: ZodType<T, ZodT
   if (!type.includes('application/json')) {
     throw new HttpError(415, 'unsupported_media_type', 'Send the body as JSON (Content-Type: application/json).');
   }
+  // Read through the cap, never whole: see body-limit.server.ts.
+  const text = await readCappedText(request);
   let raw: unknown;
   try {
-    raw = await request.json();
+    raw = JSON.parse(text);
   } catch {
     throw new HttpError(400, 'bad_request', 'The request body is not valid JSON.');
   }
