@@ -24,7 +24,8 @@ const all = (status: number) => r(status, status, status, status, status, status
 // Pages: anonymous visitors go to sign-in (302), the wrong role goes to its own home (302).
 const customerPage = r(302, 200, 404, 302, 302, 302);
 const adminPage = r(302, 302, 302, 200, 302, 302);
-const surveyorCasePage = r(302, 302, 302, 302, 200, 404);
+// The survey pack and its outcome form: the office and the assigned surveyor; anyone else gets the 404 of a case that does not exist.
+const packPage = r(302, 404, 404, 200, 200, 404);
 
 const matrix: Record<string, Record<string, Row>> = {
   'api/[...rest].ts': { ALL: all(404) },
@@ -58,7 +59,8 @@ const matrix: Record<string, Record<string, Row>> = {
   'api/staff/password.ts': { POST: all(422) },
 
   '404.astro': { GET: all(404) },
-  'index.astro': { GET: r(200, 302, 302, 302, 302, 302) },
+  // The public landing page, for everyone.
+  'index.astro': { GET: all(200) },
   'home.astro': { GET: r(302, 302, 302, 302, 302, 302) },
   'signin/index.astro': { GET: r(200, 302, 302, 302, 302, 302) },
   'signin/check-email.astro': { GET: all(200) },
@@ -73,8 +75,8 @@ const matrix: Record<string, Record<string, Row>> = {
   'office/settings.astro': { GET: adminPage },
   'office/cases/[id].astro': { GET: r(302, 302, 302, 200, 302, 302) },
   'surveys/index.astro': { GET: r(302, 302, 302, 302, 200, 200) },
-  'surveys/cases/[id].astro': { GET: surveyorCasePage },
-  'surveys/cases/[id]/outcome.astro': { GET: surveyorCasePage },
+  'surveys/cases/[id].astro': { GET: packPage },
+  'surveys/cases/[id]/outcome.astro': { GET: packPage },
 };
 
 const pagesDir = join(process.cwd(), 'src', 'pages');

@@ -31,8 +31,8 @@ describe('password limits are counted inside the credentials check', () => {
       expect(r.body.error.code).toBe('rate_limited');
     }
     for (const path of doubled(PASSWORD)) expect([404, 308], path).toContain((await wrong(user.email, path)).status);
-    // Upper-case and padded e-mails are the same account, so the same count.
-    expect((await wrong(`  ${user.email.toUpperCase()} `)).status).toBe(429);
+    // An upper-case e-mail is the same account, so the same count.
+    expect((await wrong(user.email.toUpperCase())).status).toBe(429);
   });
 
   it('keeps the count in PostgreSQL, shared with every other process', async () => {
