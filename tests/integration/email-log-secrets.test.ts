@@ -17,7 +17,8 @@ function secretsIn(message: Message): string[] {
   return urls.flatMap((u) => [...new URL(u.replace(/&amp;/g, '&')).searchParams.values()].filter((v) => /^[0-9a-f]{32,}$/i.test(v)));
 }
 
-const kinds = ['invitation', 'chase', 'reminder', 'rejection', 'submitted', 'survey_booked', 'outcome'];
+// Every CaseMailKind (src/lib/server/case-mail.server.ts).
+const kinds = ['invitation', 'chase', 'reminder', 'rejection', 'submitted', 'changed_since_ready', 'survey_booked', 'outcome'];
 
 describe('case e-mails keep no working sign-in link', () => {
   it('sends every kind, yet nothing stored, audited or returned to staff carries a token', async () => {
@@ -44,12 +45,14 @@ describe('case e-mails keep no working sign-in link', () => {
     // chase (admin) and reminder (the scheduled job's own function)
     expect((await admin.send('POST', `/api/cases/${caseId}/chase`, {})).status).toBe(200);
     expect((await sendReminder(caseId, 1)).sent).toBe(true);
-    // submitted (customer → office), survey_booked (admin → customer), outcome (surveyor → office)
+    // submitted (customer → office), changed_since_ready (customer → office), survey_booked (admin → customer), outcome (surveyor → office)
     expect((await customer.send('POST', `/api/cases/${caseId}/submit`, { acknowledgeGaps: true })).status).toBe(200);
     for (const to of ['in_review', 'ready_for_survey']) {
       const r = await admin.send('POST', `/api/cases/${caseId}/stage`, { to, overrideReason: 'Checked by phone with the customer; survey anyway.' });
       expect(r.status).toBe(200);
     }
+    // changed_since_ready (customer edits after sign-off → office)
+    expect((await customer.send('PATCH', `/api/cases/${caseId}/checklist`, { about: { fullName: 'Ffion Quarry-Hale' } })).status).toBe(200);
     expect((await admin.send('POST', `/api/cases/${caseId}/stage`, { to: 'survey_booked', surveyorId: surveyorUser.id, surveyDate: '2099-03-01' })).status).toBe(200);
     const outcome = await surveyor.send('POST', `/api/cases/${caseId}/outcome`, { outcome: 'go_ahead', confirmedEarthing: 'pme', confirmedFuseAmps: 100 });
     expect(outcome.status).toBe(200);
