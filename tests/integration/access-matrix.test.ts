@@ -126,7 +126,7 @@ describe('each visitor gets what the matrix says', () => {
     const upload = async () => {
       const f = new FormData();
       f.set('kind', 'meter_photo');
-      f.set('file', new Blob([await smallImage('jpeg')], { type: 'image/jpeg' }), 'meter.jpg');
+      f.set('file', new Blob([new Uint8Array(await smallImage('jpeg'))], { type: 'image/jpeg' }), 'meter.jpg');
       const res = await owner.client.json(`/api/cases/${caseId}/uploads`, { method: 'POST', body: f });
       expect(res.status).toBe(201);
       return res.body.id as string;

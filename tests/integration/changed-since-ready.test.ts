@@ -33,7 +33,7 @@ describe('changes after the case was marked ready', () => {
     expect((await queueItem(c!.reference)).changedSinceReadyAt).not.toBeNull();
     const form = new FormData();
     form.set('kind', 'cutout_photo');
-    form.set('file', new Blob([await smallImage('jpeg')], { type: 'image/jpeg' }), 'cutout.jpg');
+    form.set('file', new Blob([new Uint8Array(await smallImage('jpeg'))], { type: 'image/jpeg' }), 'cutout.jpg');
     expect((await customer.json(`/api/cases/${c!.id}/uploads`, { method: 'POST', body: form })).status).toBe(201);
 
     const asOffice = await admin.json(`/api/cases/${c!.id}`);

@@ -38,7 +38,7 @@ describe('case e-mails keep no working sign-in link', () => {
     // rejection (admin rejects the customer's photo)
     const form = new FormData();
     form.set('kind', 'meter_photo');
-    form.set('file', new Blob([await smallImage('jpeg')], { type: 'image/jpeg' }), 'meter.jpg');
+    form.set('file', new Blob([new Uint8Array(await smallImage('jpeg'))], { type: 'image/jpeg' }), 'meter.jpg');
     const up = await customer.json(`/api/cases/${caseId}/uploads`, { method: 'POST', body: form });
     expect(up.status).toBe(201);
     expect((await admin.send('POST', `/api/uploads/${up.body.id}/review`, { decision: 'rejected', reason: 'The meter numbers are not readable.' })).status).toBe(200);

@@ -16,7 +16,7 @@ const uploadDir = resolve(process.env.UPLOAD_DIR ?? '');
 async function form(kind: string, file?: Buffer, name = 'photo.jpg', type = 'image/jpeg') {
   const f = new FormData();
   f.set('kind', kind);
-  f.set('file', new Blob([file ?? (await smallImage('jpeg'))], { type }), name);
+  f.set('file', new Blob([new Uint8Array(file ?? (await smallImage('jpeg')))], { type }), name);
   return f;
 }
 const post = async (client: Client, caseId: string, body: FormData) => client.json(`/api/cases/${caseId}/uploads`, { method: 'POST', body });
