@@ -1,10 +1,12 @@
 // No working sign-in token is ever kept or handed out: every kind of case e-mail is sent once
 // through the real API, then the stored e-mail log, the audit trail and what the office and the
 // assigned surveyor can read are searched for every token the inbox received.
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { Client, baseUrl } from '../helpers/http';
-import { db, schema } from '../helpers/db';
+import { db, schema, sql } from '../helpers/db';
 import { messagesTo, waitForMessage, type Message } from '../helpers/mail';
 import { newStaff } from '../helpers/people';
 import { smallImage } from '../fixtures/uploads';
@@ -87,5 +89,22 @@ describe('case e-mails keep no working sign-in link', () => {
       await thief.fetch(link);
       expect((await thief.json('/api/me')).status).toBe(401);
     }
+  });
+});
+
+describe('e-mails stored before redaction', () => {
+  it('are scrubbed by the migration that introduced it', async () => {
+    const live = `${baseUrl}/api/auth/callback/nodemailer?callbackUrl=%2Fmy&token=${'ab'.repeat(32)}&email=old%40example.org`;
+    const [row] = await db
+      .insert(schema.emailLog)
+      .values({ caseId: null, kind: 'chase', toEmail: 'old@example.org', subject: 'Old chase', text: `Carry on: ${live}\n\nOpen the case: ${baseUrl}/office/cases/1` })
+      .returning();
+    // The migration's own SQL, run again (it is idempotent): what a database upgraded with old rows gets.
+    await sql.unsafe(readFileSync(join(process.cwd(), 'drizzle', '0007_redact-stored-links.sql'), 'utf8'));
+    const [after] = await db.select().from(schema.emailLog).where(eq(schema.emailLog.id, row!.id));
+    expect(after!.text).not.toContain('ab'.repeat(32));
+    expect(after!.text).toContain(REDACTED_LINK);
+    // A link without a secret is left as it was.
+    expect(after!.text).toContain(`${baseUrl}/office/cases/1`);
   });
 });
