@@ -4,6 +4,7 @@
 // no 'unsafe-inline' for scripts. Styles allow inline: React and Uppy set style attributes.
 import { createHash } from 'node:crypto';
 import islandScript from 'astro/runtime/server/astro-island.prebuilt.js';
+import islandScriptDev from 'astro/runtime/server/astro-island.prebuilt-dev.js';
 import idleScript from 'astro/runtime/client/idle.prebuilt.js';
 import loadScript from 'astro/runtime/client/load.prebuilt.js';
 import mediaScript from 'astro/runtime/client/media.prebuilt.js';
@@ -14,12 +15,14 @@ import { config } from './config.server';
 const sha256 = (text: string) => `'sha256-${createHash('sha256').update(text, 'utf8').digest('base64')}'`;
 
 /** Hashes of the inline scripts Astro itself writes into pages (the same text in every build of this Astro version). */
-export const inlineScriptHashes = [islandScript, idleScript, loadScript, mediaScript, onlyScript, visibleScript].map(sha256);
+export const inlineScriptHashes = [islandScript, islandScriptDev, idleScript, loadScript, mediaScript, onlyScript, visibleScript].map(sha256);
 
 export function contentSecurityPolicy(): string {
   return [
     "default-src 'self'",
-    `script-src 'self' ${inlineScriptHashes.join(' ')}`,
+    // `astro dev` writes page scripts inline as it serves them (a built app never does); a
+    // browser ignores 'unsafe-inline' beside hashes, so dev gets it instead of them.
+    `script-src 'self' ${import.meta.env?.DEV ? "'unsafe-inline'" : inlineScriptHashes.join(' ')}`,
     "style-src 'self' 'unsafe-inline'",
     "img-src 'self' data: blob:",
     "font-src 'self' data:",
@@ -55,7 +58,7 @@ export function withSecurityHeaders(response: Response, { signedIn }: { signedIn
   h.set('X-Frame-Options', 'DENY');
   h.set('Referrer-Policy', 'strict-origin-when-cross-origin');
   // Camera for photo uploads from a phone, on our own pages only; nothing else.
-  h.set('Permissions-Policy', 'camera=(self), microphone=(), geolocation=(), payment=(), usb=(), interest-cohort=()');
+  h.set('Permissions-Policy', 'camera=(self), microphone=(), geolocation=(), payment=(), usb=()');
   h.set('Cross-Origin-Opener-Policy', 'same-origin');
   if (config.appUrl.startsWith('https://')) h.set('Strict-Transport-Security', 'max-age=31536000; includeSubDomains');
   if (signedIn && !h.has('Cache-Control')) h.set('Cache-Control', 'no-store');
