@@ -8,11 +8,9 @@ import { cases, type CaseRow } from '../../db/schema';
 import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
 import { config } from './config.server';
-import { db } from './db.server';
+import { db, type Tx } from './db.server';
 import { renderEmail } from './email-templates.server';
 import type { SessionUser } from './users.server';
-
-type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
 
 export type ChangeSinceReady = { at: string; what: 'answers' | 'upload_added' | 'upload_removed'; detail: string };
 

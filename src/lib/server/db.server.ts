@@ -23,3 +23,6 @@ export function sqlClient(): postgres.Sql {
   db();
   return client!;
 }
+
+/** A transaction handle, for functions that must run inside the caller's transaction. */
+export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0];

@@ -6,10 +6,8 @@
 import { randomUUID } from 'node:crypto';
 import { and, eq, lt, notExists, sql } from 'drizzle-orm';
 import { revokedSessions, users } from '../../db/schema';
-import { db } from './db.server';
+import { db, type Tx } from './db.server';
 import type { SessionUser } from './users.server';
-
-type Tx = Parameters<Parameters<ReturnType<typeof db>['transaction']>[0]>[0];
 
 export type SessionClaims = { uid: string; role: string | undefined; sid: string; sv: number };
 
