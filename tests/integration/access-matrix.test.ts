@@ -44,6 +44,13 @@ const matrix: Record<string, Record<string, Row>> = {
   'api/cases/[id]/uploads.ts': { GET: r(401, 200, 404, 200, 200, 404), POST: r(401, 415, 404, 415, 415, 404) },
   'api/cases/[id]/audit.ts': { GET: r(401, 403, 403, 200, 200, 404) },
   'api/cases/[id]/emails.ts': { GET: r(401, 403, 403, 200, 200, 404) },
+  'api/cases/[id]/messages.ts': { GET: r(401, 403, 403, 200, 200, 404) },
+  // Text opt-in: anyone who may see the case reads it; only its customer changes it.
+  'api/cases/[id]/texts.ts': { GET: r(401, 200, 404, 200, 200, 404), PUT: r(401, 422, 404, 403, 403, 403), DELETE: r(401, 200, 404, 403, 403, 403) },
+  'api/cases/[id]/vehicle-lookup.ts': { POST: r(401, 422, 404, 422, 403, 403) },
+  // The SMS provider's signed webhooks: without a valid signature, nobody gets in.
+  'api/sms/status.ts': { GET: all(401), POST: all(401) },
+  'api/sms/inbound.ts': { GET: all(401), POST: all(401) },
   'api/cases/[id]/notes.ts': { GET: r(401, 403, 403, 200, 200, 404), POST: r(401, 403, 403, 422, 422, 404) },
   // The office's chase sends the customer an e-mail of what is missing (the one write let through).
   'api/cases/[id]/chase.ts': { POST: r(401, 403, 403, 200, 403, 403) },

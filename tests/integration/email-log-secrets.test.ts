@@ -73,7 +73,11 @@ describe('case e-mails keep no working sign-in link', () => {
     const asSurveyor = await surveyor.json(`/api/cases/${caseId}/emails`);
     expect(asAdmin.status).toBe(200);
     expect(asSurveyor.status).toBe(200);
-    const readable = [JSON.stringify(logged), JSON.stringify(audit), JSON.stringify(asAdmin.body), JSON.stringify(asSurveyor.body)];
+    const messagesAsAdmin = await admin.json(`/api/cases/${caseId}/messages`);
+    const messagesAsSurveyor = await surveyor.json(`/api/cases/${caseId}/messages`);
+    expect(messagesAsSurveyor.status).toBe(200);
+    for (const item of messagesAsSurveyor.body.items) expect(item).not.toHaveProperty('text');
+    const readable = [asAdmin.body, asSurveyor.body, messagesAsAdmin.body, messagesAsSurveyor.body, logged, audit].map((x) => JSON.stringify(x));
     for (const text of readable) for (const secret of secrets) expect(text).not.toContain(secret);
 
     // The office still reads what was said, with the link marked as removed; the surveyor only what was sent when.
@@ -100,7 +104,7 @@ describe('e-mails stored before redaction', () => {
       .values({ caseId: null, kind: 'chase', toEmail: 'old@example.org', subject: 'Old chase', text: `Carry on: ${live}\n\nOpen the case: ${baseUrl}/office/cases/1` })
       .returning();
     // The migration's own SQL, run again (it is idempotent): what a database upgraded with old rows gets.
-    await sql.unsafe(readFileSync(join(process.cwd(), 'drizzle', '0007_redact-stored-links.sql'), 'utf8'));
+    await sql.unsafe(readFileSync(join(process.cwd(), 'drizzle', '0008_redact-stored-links.sql'), 'utf8'));
     const [after] = await db.select().from(schema.emailLog).where(eq(schema.emailLog.id, row!.id));
     expect(after!.text).not.toContain('ab'.repeat(32));
     expect(after!.text).toContain(REDACTED_LINK);
