@@ -24,5 +24,9 @@ export default defineConfig({
   devToolbar: { enabled: false },
   vite: {
     ssr: { external: ['sharp', '@node-rs/argon2', 'pdfkit'] },
+    // Page scripts stay files under /_astro/, never inlined: the Content-Security-Policy allows
+    // scripts from our origin and, by hash, only Astro's own island loaders
+    // (src/lib/server/security-headers.server.ts).
+    build: { assetsInlineLimit: (file) => (file.endsWith('.js') ? false : undefined) },
   },
 });

@@ -1,23 +1,18 @@
-// Every request passes through here: sign-in attempts are rate-limited, then the session is
-// read and `locals.user` filled with the active user (or null).
+// Every request passes through here, in order:
+// 1. request state: the client's address (TRUST_PROXY decides whether X-Forwarded-For counts)
+//    for the limits that Auth.js's credentials check and link sender apply themselves; a request
+//    they refused is answered 429 here, whichever URL reached them;
+// 2. paths with doubled slashes are refused; a declared body over 1 MB is refused before anything reads it;
+// 3. session: `locals.user` is the active user whose session has not been ended, or null;
+// 4. security headers on every answer.
 import { defineMiddleware, sequence } from 'astro:middleware';
 import { getSession } from 'auth-astro/server';
+import { bodyRefusal } from './lib/server/body-limit.server';
 import { isDatabaseUnavailable } from './lib/server/db-errors.server';
 import { databaseUnavailable, errorResponse, HttpError, UNAVAILABLE_HEADER } from './lib/server/http';
-import { signInLimits } from './lib/server/rate-limit.server';
-import { findActiveUser, normaliseEmail } from './lib/server/users.server';
-
-const PASSWORD_PATH = '/api/auth/callback/credentials';
-const LINK_PATH = '/api/auth/signin/nodemailer';
-
-async function emailOf(request: Request): Promise<string> {
-  try {
-    const form = await request.clone().formData();
-    return normaliseEmail(String(form.get('email') ?? ''));
-  } catch {
-    return '';
-  }
-}
+import { clientAddressOf, runWithRequestState, type RequestState } from './lib/server/request-context.server';
+import { withSecurityHeaders } from './lib/server/security-headers.server';
+import { findSessionUser } from './lib/server/sessions.server';
 
 function tooMany(seconds: number): Response {
   const res = errorResponse(
@@ -27,36 +22,30 @@ function tooMany(seconds: number): Response {
   return res;
 }
 
-/** A sign-in answer that carries `error=` in its redirect is a failed attempt. */
-async function failed(res: Response): Promise<boolean> {
-  const location = res.headers.get('location') ?? '';
-  if (location.includes('error=')) return true;
-  if ((res.headers.get('content-type') ?? '').includes('json')) {
-    const body = (await res.clone().json().catch(() => ({}))) as { url?: string };
-    return typeof body.url === 'string' && body.url.includes('error=');
+const requestState = defineMiddleware((ctx, next) => {
+  // A server in front of Astro may hand over the socket's own address as locals.peerAddress.
+  const peer = (ctx.locals as { peerAddress?: string }).peerAddress;
+  let astroAddress: string | undefined;
+  try {
+    astroAddress = ctx.clientAddress;
+  } catch {
+    astroAddress = undefined;
   }
-  return false;
-}
+  const state: RequestState = { clientAddress: clientAddressOf(ctx.request.headers, astroAddress, peer) };
+  return runWithRequestState(state, async () => {
+    const res = await next();
+    return state.refusal ? tooMany(state.refusal.retryAfterSeconds) : res;
+  });
+});
 
-const rateLimit = defineMiddleware(async (ctx, next) => {
-  const { pathname } = ctx.url;
-  if (ctx.request.method !== 'POST' || (pathname !== PASSWORD_PATH && pathname !== LINK_PATH)) return next();
-  const email = await emailOf(ctx.request);
-  const address = ctx.clientAddress ?? 'unknown';
-  const [perEmail, perAddress] =
-    pathname === PASSWORD_PATH
-      ? [signInLimits.passwordPerEmail, signInLimits.passwordPerAddress]
-      : [signInLimits.linkPerEmail, signInLimits.linkPerAddress];
-  const emailKey = `e:${email}`;
-  const addressKey = `a:${address}`;
-  if (!perEmail.allows(emailKey)) return tooMany(perEmail.retryAfterSeconds(emailKey));
-  if (!perAddress.allows(addressKey)) return tooMany(perAddress.retryAfterSeconds(addressKey));
-  const res = await next();
-  // Passwords count only failures (staff sign in often); links count every request (each sends mail).
-  if (pathname === LINK_PATH || (await failed(res))) {
-    perEmail.hit(emailKey);
-    perAddress.hit(addressKey);
-  }
+const bodyCap = defineMiddleware((ctx, next) => {
+  // "//" in a path is never one of our routes; Auth.js would throw on it (a 500) rather than refuse.
+  if (ctx.url.pathname.includes('//')) return errorResponse(new HttpError(404, 'not_found', 'That address was not found.'));
+  const refusal = bodyRefusal(ctx.request, ctx.routePattern);
+  if (!refusal) return next();
+  // Nothing of the body is read; the connection closes after the answer.
+  const res = errorResponse(refusal);
+  res.headers.set('Connection', 'close');
   return res;
 });
 
@@ -69,10 +58,10 @@ const auth = defineMiddleware(async (ctx, next) => {
   if (failedRequests.has(ctx.request)) return next();
   if (ctx.url.pathname.startsWith('/api/auth/') || ctx.url.pathname.startsWith('/_astro/')) return next();
   const session = await getSession(ctx.request).catch(() => null);
-  const id = (session?.user as { id?: string } | undefined)?.id;
-  if (id) {
+  const claims = session?.user as { id?: string; sid?: string; sv?: number } | undefined;
+  if (claims?.id) {
     try {
-      ctx.locals.user = (await findActiveUser(id)) ?? null;
+      ctx.locals.user = (await findSessionUser({ uid: claims.id, sid: claims.sid, sv: claims.sv })) ?? null;
     } catch (err) {
       // API callers get the JSON 503; pages fall through to src/pages/500.astro, which says 503 kindly.
       if (!isDatabaseUnavailable(err)) throw err;
@@ -94,4 +83,9 @@ const unavailableStatus = defineMiddleware(async (_ctx, next) => {
   return new Response(res.body, { status: 503, statusText: 'Service Unavailable', headers });
 });
 
-export const onRequest = sequence(unavailableStatus, rateLimit, auth);
+const headers = defineMiddleware(async (ctx, next) => {
+  const res = await next();
+  return withSecurityHeaders(res, { signedIn: ctx.locals.user != null || ctx.url.pathname.startsWith('/api/') });
+});
+
+export const onRequest = sequence(headers, unavailableStatus, requestState, bodyCap, auth);

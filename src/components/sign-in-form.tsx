@@ -9,6 +9,7 @@ import {
   type LinkSignIn,
   type PasswordSignIn,
 } from '../lib/schemas/sign-in';
+import { safeCallbackPath } from '../lib/safe-redirect';
 
 type Props = { initialError?: string | null; callbackUrl?: string };
 
@@ -35,7 +36,9 @@ function ErrorBox({ message }: { message: string }) {
   );
 }
 
-export default function SignInForm({ initialError, callbackUrl = '/home' }: Props) {
+export default function SignInForm({ initialError, callbackUrl: wanted = '/home' }: Props) {
+  // Checked again here, where the browser navigates: only a path on this very origin.
+  const callbackUrl = safeCallbackPath(wanted, typeof window === 'undefined' ? 'http://localhost' : window.location.origin);
   const [mode, setMode] = useState<'customer' | 'staff'>('customer');
   const [error, setError] = useState<string | null>(initialError ? (signInErrorMessages[initialError] ?? signInErrorMessages.Configuration) : null);
   const link = useForm<LinkSignIn>({ resolver: zodResolver(linkSignInSchema) });
@@ -48,7 +51,7 @@ export default function SignInForm({ initialError, callbackUrl = '/home' }: Prop
     setError(null);
     const r = await authPost('/api/auth/signin/nodemailer', { email, callbackUrl });
     if (r.error) setError(r.error);
-    else window.location.assign(r.url ?? '/signin/check-email');
+    else window.location.assign(safeCallbackPath(r.url, window.location.origin, '/signin/check-email'));
   });
   const signInStaff = password.handleSubmit(async ({ email, password: pw }) => {
     setError(null);

@@ -47,6 +47,9 @@ export const users = pgTable('users', {
   passwordHash: text('password_hash'),
   phone: text('phone'),
   active: boolean('active').notNull().default(true),
+  // Carried in the session token; raising it ends every session of this user at once
+  // ("sign out everywhere", deactivation). Checked on every request.
+  sessionVersion: integer('session_version').notNull().default(0),
   createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 });
 
@@ -127,6 +130,11 @@ export const cases = pgTable(
     // trigram-indexed column, so the office's search is one indexed ILIKE, not an OR over a join.
     searchText: text('search_text').notNull().default(''),
     lastChasedAt: timestamp('last_chased_at', { withTimezone: true }),
+    // Set when the customer changes answers or uploads after the office marked the case ready
+    // (or overrode red checks); cleared when the office looks again and re-marks it.
+    changedSinceReadyAt: timestamp('changed_since_ready_at', { withTimezone: true }),
+    // What changed since then: [{ at, what, detail }], newest last.
+    changesSinceReady: jsonb('changes_since_ready').notNull().default([]),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
@@ -260,6 +268,30 @@ export const surveyOutcomes = pgTable('survey_outcomes', {
   surveyorId: text('surveyor_id').references(() => users.id, { onDelete: 'set null' }),
   recordedAt: timestamp('recorded_at', { withTimezone: true }).notNull().defaultNow(),
 });
+
+/**
+ * Fixed-window counters for rate limits, shared by every app process and kept across restarts.
+ * One row per limit and key (e.g. "password-email:ann@example.com"); old windows are pruned.
+ */
+export const rateLimits = pgTable(
+  'rate_limits',
+  {
+    key: text('key').primaryKey(),
+    windowStart: timestamp('window_start', { withTimezone: true }).notNull(),
+    count: integer('count').notNull(),
+  },
+  (t) => [index('rate_limits_window_idx').on(t.windowStart)],
+);
+
+/** Sessions ended by signing out: a session id here no longer signs anyone in, until it expires. */
+export const revokedSessions = pgTable(
+  'revoked_sessions',
+  {
+    sessionId: text('session_id').primaryKey(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+  },
+  (t) => [index('revoked_sessions_expires_idx').on(t.expiresAt)],
+);
 
 /**
  * A customer's yes to text messages: the mobile it covers and when they said so. One row per

@@ -8,6 +8,18 @@ export const baseUrl = (() => {
 export class Client {
   private cookies = new Map<string, string>();
 
+  /** A second client holding the same cookies, as a copied session cookie would. */
+  copy(): Client {
+    const other = new Client();
+    for (const [k, v] of this.cookies) other.cookies.set(k, v);
+    return other;
+  }
+
+  /** Signs out through Auth.js as the sign-out button does (CSRF token, POST). */
+  async signOut(): Promise<number> {
+    return (await this.authPost('/api/auth/signout', { callbackUrl: '/' })).status;
+  }
+
   cookieHeader(): string {
     return [...this.cookies].map(([k, v]) => `${k}=${v}`).join('; ');
   }
@@ -51,11 +63,11 @@ export class Client {
   }
 
   /** Posts a form to an Auth.js route with a fresh CSRF token; returns Auth.js's redirect URL. */
-  async authPost(path: string, fields: Record<string, string>): Promise<{ status: number; url?: string; body: any }> {
+  async authPost(path: string, fields: Record<string, string>, headers: Record<string, string> = {}): Promise<{ status: number; url?: string; body: any }> {
     const { body: csrf } = await this.json<{ csrfToken: string }>('/api/auth/csrf');
     const { status, body } = await this.json(path, {
       method: 'POST',
-      headers: { 'content-type': 'application/x-www-form-urlencoded', 'x-auth-return-redirect': '1' },
+      headers: { 'content-type': 'application/x-www-form-urlencoded', 'x-auth-return-redirect': '1', ...headers },
       body: new URLSearchParams({ ...fields, csrfToken: csrf.csrfToken }),
     });
     return { status, url: body?.url, body };

@@ -36,6 +36,8 @@ const countRows = async () => (await db.select({ n: sql<number>`count(*)::int` }
 
 /** Runs a refused upload and checks it left nothing: same row count, same files on disk. */
 async function expectNothingKept(run: () => Promise<{ status: number; body: any }>, status: number) {
+  // An earlier refused upload may still be draining its scratch file on a busy machine: start clean.
+  await waitFor(() => !listFiles(uploadDir).some((f) => f.startsWith('.incoming/')));
   const rowsBefore = await countRows();
   const filesBefore = listFiles(uploadDir);
   const r = await run();

@@ -18,6 +18,8 @@ export type OfficeCaseView = {
   surveyDate: string | null;
   submittedAt: string | null;
   updatedAt: string;
+  /** What the customer changed after the office marked the case ready; null when nothing. */
+  changedSinceReady: { at: string; changes: { at: string; what: string; detail: string }[] } | null;
 };
 
 /** GET /api/cases/:id/readiness. */

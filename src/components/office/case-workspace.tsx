@@ -55,6 +55,8 @@ function ChaseButton({ caseId, onSent }: { caseId: string; onSent(): void }) {
   );
 }
 
+const changeWords: Record<string, string> = { answers: 'changed answers', upload_added: 'sent a file', upload_removed: 'removed a file' };
+
 export default function CaseWorkspace({ initial, people, surveyors, vehicleLookup }: Props) {
   const [view, setView] = useState(initial);
   const [readiness, setReadiness] = useState<Readiness>({ light: initial.readiness.light, gapCount: initial.readiness.gapCount, checks: initial.readiness.checks });
@@ -144,6 +146,21 @@ export default function CaseWorkspace({ initial, people, surveyors, vehicleLooku
           <span className="ml-auto text-xs text-ground-600">Last change {formatDayTime(view.updatedAt)}</span>
         </nav>
       </header>
+      {view.changedSinceReady && (
+        <section className="card border-l-4 border-clay-600" data-testid="changed-since-ready" aria-labelledby="changed-heading">
+          <h2 id="changed-heading" className="text-lg font-bold text-ground-900">Changed since it was marked ready</h2>
+          <p className="text-sm text-ground-700">
+            The customer changed these after the case was marked ready for survey. Look at the checks again before booking.
+          </p>
+          <ul className="mt-2 list-disc pl-5 text-ground-800">
+            {view.changedSinceReady.changes.map((c) => (
+              <li key={`${c.at}-${c.detail}`}>
+                {new Date(c.at).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'Europe/London' })}: {changeWords[c.what] ?? c.what} — {c.detail}
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
 
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_24rem]">
         <div className="min-w-0 space-y-4">

@@ -56,6 +56,11 @@ function CustomerCell({ r }: { r: QueueItem }) {
       </a>
       <div className="truncate text-ground-600" title={r.customerEmail}>{r.customerEmail}</div>
       <div className="font-mono text-xs text-ground-500">{r.reference}</div>
+      {r.changedSinceReadyAt && (
+        <div className="mt-1 inline-block rounded bg-clay-100 px-1.5 py-0.5 text-xs font-semibold text-clay-800" data-testid="changed-since-ready">
+          Changed since ready
+        </div>
+      )}
     </div>
   );
 }

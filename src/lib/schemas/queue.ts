@@ -23,7 +23,8 @@ export const queueQuerySchema = z
     deliveryWithin: z.coerce.number({ invalid_type_error: 'deliveryWithin is a number of days.' }).int().min(0).max(365).optional(),
     sort: z.enum(queueSortKeys, { errorMap: () => ({ message: `Sort by one of: ${queueSortKeys.join(', ')}.` }) }).default('light'),
     dir: z.enum(['asc', 'desc'], { errorMap: () => ({ message: 'dir is asc or desc.' }) }).default('asc'),
-    page: z.coerce.number({ invalid_type_error: 'page is a number.' }).int().min(1, 'page starts at 1.').default(1),
+    // 1e308 is an "integer" to JavaScript: without a ceiling it reached PostgreSQL as an offset.
+    page: z.coerce.number({ invalid_type_error: 'page is a number.' }).int().min(1, 'page starts at 1.').max(100_000, 'page is at most 100000.').default(1),
     pageSize: z.coerce.number({ invalid_type_error: 'pageSize is a number.' }).int().min(1).max(200, 'pageSize is at most 200.').default(50),
   })
   .strict();
@@ -56,4 +57,6 @@ export type QueueItem = {
   surveyorId: string | null;
   surveyorName: string | null;
   surveyDate: string | null;
+  /** Set when the customer changed something after the office marked the case ready. */
+  changedSinceReadyAt: string | null;
 };

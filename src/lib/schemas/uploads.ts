@@ -36,6 +36,9 @@ export const uploadLimits = Object.freeze({
   thumbWidth: 480,
   /** Longest original file name kept as metadata, in characters. */
   nameMaxLength: 120,
+  /** Per case: a full checklist needs about ten files; this leaves room for retakes, not a dump. */
+  caseMaxFiles: 60,
+  caseMaxBytes: 300 * MB,
 });
 
 /** Types we keep, decided from the file's content on the server; value is the stored extension. */

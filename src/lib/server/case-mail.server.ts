@@ -4,7 +4,19 @@ import { emailLog } from '../../db/schema';
 import { db } from './db.server';
 import { sendMail, type OutgoingMail } from './mail.server';
 
-export type CaseMailKind = 'invitation' | 'chase' | 'reminder' | 'rejection' | 'survey_booked' | 'submitted' | 'outcome';
+/** What the stored copy shows where the message carried a link that signs someone in. */
+export const REDACTED_LINK = '[sign-in link — sent to the customer, not kept]';
+
+/**
+ * The message text as it may be kept: every link that carries a token (a sign-in link, a
+ * password link) is replaced, so nobody who reads the case's e-mails can use it.
+ * @example redactLinks('Sign in: https://a.example/api/auth/callback/nodemailer?token=abc') // 'Sign in: [sign-in link — …]'
+ */
+export function redactLinks(text: string): string {
+  return text.replace(/\bhttps?:\/\/[^\s<>"']+/gi, (url) => (/[?&](token|code|key|signature)=|\/api\/auth\/callback\//i.test(url) ? REDACTED_LINK : url));
+}
+
+export type CaseMailKind = 'invitation' | 'chase' | 'reminder' | 'rejection' | 'survey_booked' | 'submitted' | 'outcome' | 'changed_since_ready';
 
 /**
  * Sends and logs one e-mail. With a dedupeKey, the log row is written first under a unique key,
@@ -19,7 +31,8 @@ export async function sendCaseMail(input: { caseId: string | null; kind: CaseMai
       kind: input.kind,
       toEmail: input.mail.to,
       subject: input.mail.subject,
-      text: input.mail.text,
+      // Never the live link: the stored copy is for reading, not for signing in.
+      text: redactLinks(input.mail.text),
       sentById: input.sentById ?? null,
       dedupeKey: input.dedupeKey ?? null,
     })

@@ -44,7 +44,8 @@ export async function listAudit(caseId: string) {
     .limit(500);
 }
 
-export async function listEmails(caseId: string) {
+/** A case's stored e-mails, newest first; their text already has its sign-in links removed. */
+async function emailRows(caseId: string) {
   return db()
     .select({
       id: emailLog.id,
@@ -59,6 +60,15 @@ export async function listEmails(caseId: string) {
     .leftJoin(author, eq(author.id, emailLog.sentById))
     .where(eq(emailLog.caseId, caseId))
     .orderBy(desc(emailLog.createdAt));
+}
+
+/**
+ * A case's e-mail history, newest first. The office sees each message's text; a surveyor only
+ * what was sent when (kind and subject), not its words or its recipient.
+ */
+export async function listEmails(caseId: string, { withText }: { withText: boolean }) {
+  const rows = await emailRows(caseId);
+  return withText ? rows : rows.map(({ id, kind, subject, createdAt }) => ({ id, kind, subject, createdAt }));
 }
 
 /** One message in the case's history, e-mail or text, as the office reads it. */
@@ -77,9 +87,12 @@ export type MessageItem = {
   sentByName: string | null;
 };
 
+/** What a surveyor sees of one message. */
+export type MessageSummary = Pick<MessageItem, 'id' | 'channel' | 'direction' | 'kind' | 'subject' | 'status' | 'createdAt'>;
+
 /** E-mails and texts together, newest first. An e-mail is logged once sent, so its status is "sent". */
-export async function listMessages(caseId: string): Promise<MessageItem[]> {
-  const emails = await listEmails(caseId);
+export async function listMessages(caseId: string, { withText }: { withText: boolean }): Promise<MessageItem[] | MessageSummary[]> {
+  const emails = await emailRows(caseId);
   const texts = await db()
     .select({
       id: textLog.id,
@@ -108,5 +121,7 @@ export async function listMessages(caseId: string): Promise<MessageItem[]> {
       createdAt: t.createdAt.toISOString(), sentByName: t.sentByName,
     })),
   ];
-  return items.sort((a, b) => b.createdAt.localeCompare(a.createdAt));
+  items.sort((a, b) => b.createdAt.localeCompare(a.createdAt));
+  // A surveyor sees that a message went and how it fared, not its words or where it went.
+  return withText ? items : items.map(({ id, channel, direction, kind, subject, status, createdAt }) => ({ id, channel, direction, kind, subject, status, createdAt }));
 }

@@ -1,5 +1,5 @@
 // Server-only: the JSON shape of one case as the API and pages hand it out.
-import type { CaseRow } from '../../db/schema';
+import type { CaseRow, Role } from '../../db/schema';
 import { fieldWarnings, sectionProgress, type Checklist } from '../schemas/checklist';
 import { checkMpanCore } from '../validation/mpan';
 import type { CheckResult } from '../readiness';
@@ -9,8 +9,28 @@ export const editableStages: CaseRow['stage'][] = ['invited', 'filling_in', 'sen
 
 export type CaseView = ReturnType<typeof toCaseView>;
 
-/** The case as its customer and staff see it through the API. */
-export function toCaseView(row: CaseRow) {
+// Actions written for the firm, not the customer ("The office to apply…", "The installer to plan…").
+const STAFF_ACTION = /^(the|our) (office|installer|surveyor|electrician)\b/i;
+
+/**
+ * The checks as a viewer may see them: staff get everything; a customer gets their own words
+ * only — no staffText, no figures, no actions meant for the firm.
+ * @example checksFor(checks, 'customer')[0] // { id, light, title, customerText, actions, source }
+ */
+export function checksFor(checks: CheckResult[], role: Role) {
+  if (role !== 'customer') return checks;
+  return checks.map((c) => ({
+    id: c.id,
+    light: c.light,
+    title: c.title,
+    customerText: c.customerText,
+    source: c.source,
+    actions: c.actions.filter((a) => !STAFF_ACTION.test(a)),
+  }));
+}
+
+/** The case as its customer (customer words only) or staff see it through the API. */
+export function toCaseView(row: CaseRow, role: Role) {
   const checklist = (row.checklist ?? {}) as Checklist;
   const mpan = checklist.supply?.mpanCore ? checkMpanCore(checklist.supply.mpanCore) : null;
   return {
@@ -24,8 +44,13 @@ export function toCaseView(row: CaseRow) {
     region: mpan?.ok ? mpan.region : null,
     editable: editableStages.includes(row.stage),
     address: { addressLine1: row.addressLine1, addressLine2: row.addressLine2, town: row.town, postcode: row.postcode },
-    readiness: { light: row.readinessLight, gapCount: row.readinessGaps, checks: row.readinessChecks as CheckResult[], at: row.readinessAt?.toISOString() ?? null },
+    readiness: { light: row.readinessLight, gapCount: row.readinessGaps, checks: checksFor(row.readinessChecks as CheckResult[], role), at: row.readinessAt?.toISOString() ?? null },
     surveyDate: row.surveyDate,
+    // For the office: what the customer changed after the case was marked ready.
+    changedSinceReady:
+      role !== 'customer' && row.changedSinceReadyAt
+        ? { at: row.changedSinceReadyAt.toISOString(), changes: row.changesSinceReady as { at: string; what: string; detail: string }[] }
+        : null,
     submittedAt: row.submittedAt?.toISOString() ?? null,
     updatedAt: row.updatedAt.toISOString(),
   };

@@ -1,6 +1,7 @@
 // Server-only: queries on cases, always scoped by who is asking.
 import { and, desc, eq, sql } from 'drizzle-orm';
 import { db } from './db.server';
+import { isUuid } from '../ids';
 import { cases, users } from '../../db/schema';
 import type { SessionUser } from './users.server';
 
@@ -55,7 +56,7 @@ export async function listAllCases({ limit = 50, offset = 0 } = {}) {
 
 /** One case if this user may see it; undefined otherwise (callers answer 404, never 403). */
 export async function findVisibleCase(user: SessionUser, id: string) {
-  if (!/^[0-9a-f-]{36}$/i.test(id)) return undefined;
+  if (!isUuid(id)) return undefined;
   const scope =
     user.role === 'admin'
       ? eq(cases.id, id)

@@ -9,6 +9,9 @@ import { computeReadiness, readinessColumns } from './readiness.server';
 import { refreshSearchTextSql } from '../../db/search-text';
 import { readinessSettings } from './settings.server';
 import { HttpError } from './http';
+import { noteChangeSinceReady, tellOfficeOfChange } from './changes-since-ready.server';
+import { firm } from './office.server';
+import { fieldLabels } from '../field-labels';
 import type { SessionUser } from './users.server';
 
 /** Only the fields that really change, as { path: [before, after] }, for the audit trail. */
@@ -36,18 +39,19 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
   }
   // Read before the transaction opens: inside it, every query must go through tx.
   const settings = await readinessSettings();
-  return transaction(async (tx) => {
+  let changedAfterReady: string | null = null;
+  const view = await transaction(async (tx) => {
     const [current] = await tx.select().from(cases).where(eq(cases.id, row.id)).for('update');
     if (!current) throw new HttpError(404, 'not_found', 'That case was not found.');
     if (ifVersion !== null && current.version !== ifVersion) {
       throw new HttpError(409, 'conflict', 'These answers were changed on another device or tab. The newer answers are loaded.', undefined, {
-        current: toCaseView(current),
+        current: toCaseView(current, user.role),
       });
     }
     const before = current.checklist as Checklist;
     const after = mergeChecklist(before, patch);
     const changes = diff(before, after);
-    if (Object.keys(changes).length === 0) return toCaseView(current);
+    if (Object.keys(changes).length === 0) return toCaseView(current, user.role);
     const about = after.about ?? {};
     const isCustomer = user.role === 'customer';
     // Readiness of the new answers, stored by the same UPDATE: fewer round trips while the row is locked.
@@ -79,11 +83,28 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
     });
     // The office's search reads the postcode (about) and the MPAN (supply); nothing else here feeds it.
     if ('about' in patch || 'supply' in patch) await tx.execute(refreshSearchTextSql(row.id));
+    const detail = changedFieldWords(Object.keys(changes));
+    const flagged = await noteChangeSinceReady(tx, user, row.id, { what: 'answers', detail });
+    if (flagged) changedAfterReady = detail;
     if (current.stage !== saved!.stage) {
       await audit(tx, { caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: current.stage }, after: { stage: saved!.stage } });
     }
-    return toCaseView(saved!);
+    if (saved!.stage !== 'ready_for_survey') return toCaseView(saved!, user.role);
+    // A change after sign-off is noted on the case row: read it back so the answer shows it.
+    const [fresh] = await tx.select().from(cases).where(eq(cases.id, row.id));
+    return toCaseView(fresh!, user.role);
   });
+  if (changedAfterReady !== null) await tellOfficeOfChange(row, user, { what: 'answers', detail: changedAfterReady }, (await firm()).email);
+  return view;
+}
+
+/** "the main fuse rating, the earthing type" from changed paths such as supply.loads.showerKw. */
+function changedFieldWords(paths: string[]): string {
+  const label = (path: string) => {
+    for (let p = path; p.includes('.'); p = p.slice(0, p.lastIndexOf('.'))) if (fieldLabels[p]) return fieldLabels[p]!;
+    return path;
+  };
+  return [...new Set(paths.map(label))].join(', ');
 }
 
 export type Gap = { section: string; title: string; missing: string[] };
@@ -112,5 +133,5 @@ export async function submitCase(user: SessionUser, row: CaseRow, acknowledgeGap
     await audit(tx, { caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: row.stage }, after: { stage: 'sent_for_review', gaps: gaps.length } });
     return result;
   });
-  return { view: toCaseView(saved!), gaps };
+  return { view: toCaseView(saved!, user.role), gaps };
 }

@@ -6,6 +6,7 @@ import { isDatabaseUnavailable } from './db-errors.server';
 
 /** Seconds a client should wait before trying again after a 503. */
 export const RETRY_AFTER_SECONDS = 10;
+import { readCappedText } from './body-limit.server';
 
 export type ErrorCode =
   | 'bad_request'
@@ -13,6 +14,7 @@ export type ErrorCode =
   | 'forbidden'
   | 'not_found'
   | 'conflict'
+  | 'length_required'
   | 'payload_too_large'
   | 'unsupported_media_type'
   | 'invalid'
@@ -84,9 +86,11 @@ export async function parseJsonBody<T>(request: Request, schema: ZodType<T, ZodT
   if (!type.includes('application/json')) {
     throw new HttpError(415, 'unsupported_media_type', 'Send the body as JSON (Content-Type: application/json).');
   }
+  // Read through the cap, never whole: see body-limit.server.ts.
+  const text = await readCappedText(request);
   let raw: unknown;
   try {
-    raw = await request.json();
+    raw = JSON.parse(text);
   } catch {
     throw new HttpError(400, 'bad_request', 'The request body is not valid JSON.');
   }

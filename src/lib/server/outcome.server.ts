@@ -57,7 +57,7 @@ export async function recordOutcome(actor: SessionUser, row: CaseRow, body: Outc
     return fresh!;
   });
   const officeTold = await tellOffice(actor, saved, body);
-  return { case: toCaseView(saved), officeTold };
+  return { case: toCaseView(saved, actor.role), officeTold };
 }
 
 /** E-mails the office; a mail failure is logged and reported, but the record stands. */

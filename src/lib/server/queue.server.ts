@@ -66,6 +66,7 @@ const columns = {
   surveyorId: cases.surveyorId,
   surveyorName: surveyors.name,
   surveyDate: cases.surveyDate,
+  changedSinceReadyAt: cases.changedSinceReadyAt,
   total: sql<number>`count(*) over ()`,
 };
 
@@ -73,7 +74,7 @@ type Row = { [K in Exclude<keyof typeof columns, 'total'>]: unknown };
 
 function toItem(r: Row): QueueItem {
   const iso = (d: unknown) => (d instanceof Date ? d.toISOString() : (d as string | null));
-  return { ...(r as unknown as QueueItem), invitedAt: iso(r.invitedAt)!, lastCustomerActivityAt: iso(r.lastCustomerActivityAt) };
+  return { ...(r as unknown as QueueItem), invitedAt: iso(r.invitedAt)!, lastCustomerActivityAt: iso(r.lastCustomerActivityAt), changedSinceReadyAt: iso(r.changedSinceReadyAt) };
 }
 
 /**

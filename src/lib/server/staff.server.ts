@@ -9,6 +9,7 @@ import { renderEmail } from './email-templates.server';
 import { HttpError } from './http';
 import { sendMail } from './mail.server';
 import { hashPassword } from './passwords.server';
+import { endAllSessions } from './sessions.server';
 import type { SessionUser } from './users.server';
 
 const hashToken = (token: string) => createHash('sha256').update(`${token}${config.authSecret}`).digest('hex');
@@ -67,6 +68,8 @@ export async function setPasswordWithToken(email: string, token: string, passwor
     .where(and(eq(users.email, email.toLowerCase()), inArray(users.role, ['admin', 'surveyor'])))
     .returning();
   if (!user) throw new HttpError(400, 'bad_request', 'That staff account no longer exists.');
+  // A new password ends sessions signed in with the old one.
+  await endAllSessions(user.id);
   await audit(db(), { actorId: user.id, action: 'user.password_set', entity: 'user', entityId: user.id });
 }
 
@@ -75,6 +78,8 @@ export async function setStaffActive(admin: SessionUser, id: string, active: boo
   const [before] = await db().select().from(users).where(and(eq(users.id, id), inArray(users.role, ['admin', 'surveyor'])));
   if (!before) throw new HttpError(404, 'not_found', 'That staff account was not found.');
   const [user] = await db().update(users).set({ active }).where(eq(users.id, id)).returning();
+  // Deactivation ends every session at once; reactivating does not bring the old ones back.
+  if (!active) await endAllSessions(id);
   await audit(db(), { actorId: admin.id, action: active ? 'user.activated' : 'user.deactivated', entity: 'user', entityId: id, before: { active: before.active }, after: { active } });
   return { id: user!.id, name: user!.name, email: user!.email, role: user!.role, active: user!.active };
 }

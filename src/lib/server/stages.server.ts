@@ -4,6 +4,7 @@ import { cases, users, type CaseRow } from '../../db/schema';
 import type { StageMove } from '../schemas/office';
 import { allowedMoves, stageLabels, type StageId } from '../stages';
 import { audit } from './audit.server';
+import { clearChangesSinceReady } from './changes-since-ready.server';
 import { sendCaseMail } from './case-mail.server';
 import { toCaseView } from './case-view.server';
 import { config } from './config.server';
@@ -61,11 +62,13 @@ export async function moveStage(actor: SessionUser, row: CaseRow, move: StageMov
       .where(and(eq(cases.id, row.id), eq(cases.stage, from)))
       .returning();
     if (!updated) throw new HttpError(409, 'conflict', 'The case moved while you were looking at it. Reload and try again.', undefined, { allowed: [] });
+    // Moving on means the office has looked again at whatever changed after sign-off.
+    await clearChangesSinceReady(tx, row.id);
     await audit(tx, { caseId: row.id, actorId: actor.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: from }, after: { stage: move.to, ...note } });
     return updated;
   });
   if (move.to === 'survey_booked') await tellCustomerSurveyBooked(actor, saved, surveyor!.name ?? 'Our surveyor');
-  return toCaseView(saved);
+  return toCaseView(saved, actor.role);
 }
 
 async function tellCustomerSurveyBooked(actor: SessionUser, row: CaseRow, surveyorName: string) {

@@ -32,9 +32,14 @@ import { editableStages } from './case-view.server';
 import { findVisibleCase } from './cases.server';
 import { config } from './config.server';
 import { db, transaction } from './db.server';
+import { isUuid } from '../ids';
 import { HttpError, notFound } from './http';
 import { refreshReadiness } from './readiness.server';
 import { readinessSettings } from './settings.server';
+import { uploadRateLimits } from './rate-limit.server';
+import { noteChangeSinceReady, tellOfficeOfChange } from './changes-since-ready.server';
+import { firm } from './office.server';
+import { uploadKindLabels } from '../readiness/upload-status';
 import { uploadStorage } from './storage/index.server';
 import type { SessionUser } from './users.server';
 
@@ -116,6 +121,16 @@ const refuse = {
     new HttpError(422, 'invalid', 'Say what this file shows (for example the meter or the cut-out).', {
       kind: `Use one of: ${uploadKinds.join(', ')}.`,
     }),
+  caseFull: (files: number, bytes: number) =>
+    new HttpError(
+      413,
+      'payload_too_large',
+      `This case already holds ${files} files (${formatBytes(bytes)}), the most we keep for one home (${uploadLimits.caseMaxFiles} files, ${formatBytes(uploadLimits.caseMaxBytes)}). Please remove a photo you no longer need, or ask your installer.`,
+    ),
+  tooFast: (seconds: number) =>
+    new HttpError(429, 'rate_limited', `That is a lot of uploads in a short time. Please wait ${Math.ceil(seconds / 60)} minutes and try again.`, undefined, {
+      retryAfterSeconds: seconds,
+    }),
   locked: () =>
     new HttpError(409, 'conflict', 'This case can no longer be changed. Please contact your installer.', undefined, { reason: 'locked' }),
 };
@@ -131,15 +146,16 @@ class ScratchFile {
 
   static async create(suffix: string): Promise<ScratchFile> {
     const dir = scratchDir();
-    await mkdir(dir, { recursive: true });
+    await mkdir(dir, { recursive: true, mode: 0o700 });
     const path = join(dir, `${randomUUID()}.${suffix}`);
-    return new ScratchFile(path, await open(path, 'wx'));
+    // Readable by the app's own user only: customers' photos are nobody else's business.
+    return new ScratchFile(path, await open(path, 'wx', 0o600));
   }
 
   /** A path for a tool (sharp) to write itself; removed with `remove()` like the others. */
   static async reserve(suffix: string): Promise<ScratchFile> {
     const dir = scratchDir();
-    await mkdir(dir, { recursive: true });
+    await mkdir(dir, { recursive: true, mode: 0o700 });
     return new ScratchFile(join(dir, `${randomUUID()}.${suffix}`), null);
   }
 
@@ -481,6 +497,18 @@ export async function receiveUpload(user: SessionUser, caseRow: CaseRow, request
     discardBody(request);
     throw refuse.tooLarge(null);
   }
+  // Both before a byte is read: the per-user rate, then the case's room (checked again on keeping).
+  const rate = await uploadRateLimits.perUser.hit(user.id);
+  if (!rate.allowed) {
+    discardBody(request);
+    throw refuse.tooFast(rate.retryAfterSeconds);
+  }
+  try {
+    await assertCaseHasRoom(db(), caseRow.id, 0);
+  } catch (err) {
+    discardBody(request);
+    throw err;
+  }
   const received = await receiveMultipart(request);
   const scratch: ScratchFile[] = [received.file];
   try {
@@ -521,6 +549,17 @@ async function inImageSlot<T>(work: () => Promise<T>): Promise<T> {
   }
 }
 
+/** 413 when one more file of `bytes` would pass the case's quota (files or total bytes). */
+async function assertCaseHasRoom(q: Pick<ReturnType<typeof db>, 'select'>, caseId: string, bytes: number): Promise<void> {
+  const [used] = await q
+    .select({ files: sql<number>`count(*)::int`, bytes: sql<number>`coalesce(sum(${uploads.sizeBytes}), 0)::bigint` })
+    .from(uploads)
+    .where(eq(uploads.caseId, caseId));
+  const files = Number(used?.files ?? 0);
+  const total = Number(used?.bytes ?? 0);
+  if (files + 1 > uploadLimits.caseMaxFiles || total + bytes > uploadLimits.caseMaxBytes) throw refuse.caseFull(files, total);
+}
+
 /**
  * Moves the files into storage, then commits the row (with its audit entry); removes the files
  * again if the row does not commit. Killed in between, the process leaves files without a row,
@@ -532,6 +571,7 @@ async function keep(user: SessionUser, caseRow: CaseRow, kind: UploadKind, origi
   const shard = id.slice(0, 2);
   const storageKey = `${shard}/${id}.${extensionOf(p.type)}`;
   const thumbKey = p.thumb ? `${shard}/${id}-thumb.webp` : null;
+  let firstChangeAfterReady = false;
   const storage = uploadStorage();
   const removeStored = () => Promise.all([storage.delete(storageKey), thumbKey ? storage.delete(thumbKey) : null]).catch(() => {});
   // Read before the transaction opens: inside it, every query must go through tx.
@@ -540,6 +580,9 @@ async function keep(user: SessionUser, caseRow: CaseRow, kind: UploadKind, origi
     await storage.put(storageKey, { file: p.main.path });
     if (thumbKey && p.thumb) await storage.put(thumbKey, { file: p.thumb.path });
     const row = await transaction(async (tx) => {
+      // The case row is locked so two uploads at once cannot both take the last room.
+      await tx.select({ id: cases.id }).from(cases).where(eq(cases.id, caseRow.id)).for('update');
+      await assertCaseHasRoom(tx, caseRow.id, p.bytes);
       const [inserted] = await tx
         .insert(uploads)
         .values({
@@ -561,10 +604,13 @@ async function keep(user: SessionUser, caseRow: CaseRow, kind: UploadKind, origi
       if (user.role === 'customer') {
         await tx.update(cases).set({ lastCustomerActivityAt: new Date() }).where(eq(cases.id, caseRow.id));
       }
+      firstChangeAfterReady = await noteChangeSinceReady(tx, user, caseRow.id, { what: 'upload_added', detail: uploadKindLabels[kind] });
       // The documents check counts this file, so the stored light moves with it.
       await refreshReadiness(tx, caseRow.id, settings);
       return inserted!;
     });
+    // Told after the row has committed (tellOfficeOfChange never throws for a failed e-mail).
+    if (firstChangeAfterReady) await tellOfficeOfChange(caseRow, user, { what: 'upload_added', detail: uploadKindLabels[kind] }, (await firm()).email);
     return toUploadItem(row);
   } catch (err) {
     await removeStored();
@@ -595,7 +641,7 @@ export async function listUploads(caseId: string, kind?: UploadKind): Promise<Up
 
 /** One upload if this user may see its case (same rule as the case itself); undefined otherwise. */
 export async function findVisibleUpload(user: SessionUser, id: string): Promise<{ row: UploadRow; caseRow: CaseRow } | undefined> {
-  if (!/^[0-9a-f-]{36}$/i.test(id)) return undefined;
+  if (!isUuid(id)) return undefined;
   const [row] = await db().select().from(uploads).where(eq(uploads.id, id)).limit(1);
   if (!row) return undefined;
   const caseRow = await findVisibleCase(user, row.caseId);
@@ -606,10 +652,10 @@ export async function findVisibleUpload(user: SessionUser, id: string): Promise<
  * RFC 6266 §4.3: a quoted ASCII `filename` fallback plus RFC 8187 `filename*` in UTF-8.
  * @example contentDisposition('Zoë’s meter.jpg') // inline; filename="Zo_s meter.jpg"; filename*=UTF-8''Zo%C3%AB%E2%80%99s%20meter.jpg
  */
-export function contentDisposition(name: string): string {
+export function contentDisposition(name: string, disposition: 'inline' | 'attachment' = 'inline'): string {
   const ascii = name.replace(/[^\x20-\x7e]|["\\%]/g, '_');
   const encoded = encodeURIComponent(name).replace(/['()*]/g, (c) => `%${c.charCodeAt(0).toString(16).toUpperCase()}`);
-  return `inline; filename="${ascii}"; filename*=UTF-8''${encoded}`;
+  return `${disposition}; filename="${ascii}"; filename*=UTF-8''${encoded}`;
 }
 
 /** The name a download is offered under: the sender's name with the stored type's extension. */
@@ -629,7 +675,9 @@ export async function uploadResponse(row: UploadRow, size: 'full' | 'thumb'): Pr
     headers: {
       'Content-Type': size === 'thumb' ? 'image/webp' : row.mimeType,
       'Content-Length': String(stored.size),
-      'Content-Disposition': contentDisposition(downloadName(row, size === 'thumb')),
+      // A PDF can carry script and links: it is downloaded, never opened inside our origin.
+      'Content-Disposition': contentDisposition(downloadName(row, size === 'thumb'), row.mimeType === 'application/pdf' && size === 'full' ? 'attachment' : 'inline'),
+      'Content-Security-Policy': "default-src 'none'; sandbox",
       'X-Content-Type-Options': 'nosniff',
       'Cache-Control': 'private, max-age=600',
       'Cross-Origin-Resource-Policy': 'same-origin',
@@ -647,9 +695,13 @@ export async function deleteUpload(user: SessionUser, row: UploadRow, caseRow: C
   if (user.role !== 'customer' || caseRow.customerId !== user.id) {
     throw new HttpError(403, 'forbidden', 'Only the customer who owns this case can remove its uploads; the office rejects them instead.');
   }
+  if (row.uploadedBy !== user.id) {
+    throw new HttpError(403, 'forbidden', 'This file was added by your installer or surveyor, so it stays with your case. Contact your installer if it is wrong.');
+  }
   if (!editableStages.includes(caseRow.stage)) throw refuse.locked();
   // Read before the transaction opens: inside it, every query must go through tx.
   const settings = await readinessSettings();
+  let firstChangeAfterReady = false;
   const deleted = await transaction(async (tx) => {
     // Conditional delete, so an office accept that lands first wins.
     const [gone] = await tx
@@ -659,9 +711,11 @@ export async function deleteUpload(user: SessionUser, row: UploadRow, caseRow: C
     if (!gone) return undefined;
     await audit(tx, { caseId: row.caseId, actorId: user.id, action: 'upload.deleted', entity: 'upload', entityId: row.id, before: auditView(gone) });
     await tx.update(cases).set({ lastCustomerActivityAt: sql`now()` }).where(eq(cases.id, row.caseId));
+    firstChangeAfterReady = await noteChangeSinceReady(tx, user, row.caseId, { what: 'upload_removed', detail: uploadKindLabels[gone.kind] });
     await refreshReadiness(tx, row.caseId, settings);
     return gone;
   });
+  if (deleted && firstChangeAfterReady) await tellOfficeOfChange(caseRow, user, { what: 'upload_removed', detail: uploadKindLabels[deleted.kind] }, (await firm()).email);
   if (!deleted) {
     throw new HttpError(409, 'conflict', 'The office has already accepted this file, so it stays with your case. Contact your installer if it is wrong.', undefined, {
       reason: 'accepted',

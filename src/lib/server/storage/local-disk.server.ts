@@ -1,6 +1,6 @@
 // Server-only: the Storage interface on the local disk, one file per key under a root folder.
 import { createReadStream } from 'node:fs';
-import { copyFile, link, mkdir, opendir, rm, stat, unlink, writeFile } from 'node:fs/promises';
+import { chmod, copyFile, link, mkdir, opendir, rm, stat, unlink, writeFile } from 'node:fs/promises';
 import { dirname, join, resolve, sep } from 'node:path';
 import { assertSafeKey, isSafeKey, type PutSource, type Storage, type StoredObject } from './storage';
 
@@ -21,12 +21,15 @@ export class LocalDiskStorage implements Storage {
 
   async put(key: string, source: PutSource): Promise<void> {
     const path = this.pathOf(key);
-    await mkdir(dirname(path), { recursive: true });
+    // Owner-only folders and files: another account on the machine cannot read uploads.
+    await mkdir(dirname(path), { recursive: true, mode: 0o700 });
     if (Buffer.isBuffer(source)) {
-      await writeFile(path, source, { flag: 'wx' });
+      await writeFile(path, source, { flag: 'wx', mode: 0o600 });
       return;
     }
     await moveWithoutReplacing(source.file, path);
+    // sharp writes its files with the default mode (often 0644); tighten whatever arrived.
+    await chmod(path, 0o600);
   }
 
   async get(key: string): Promise<StoredObject | null> {

@@ -8,5 +8,5 @@ export const GET = api(async (ctx) => {
   const user = requireUser(ctx);
   const row = await findVisibleCase(user, ctx.params.id!);
   if (!row) throw notFound('That case');
-  return json(toCaseView(row));
+  return json(toCaseView(row, user.role));
 });
