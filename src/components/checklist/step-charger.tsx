@@ -40,6 +40,11 @@ export function ChargerStep({ caseId }: { caseId: string }) {
           </p>
         </MoreHelp>
       </ChoiceField>
+      <ChoiceField
+        path="charger.ratingKw"
+        columns={2}
+        help="A 7.4 kW charger suits most homes and cars. If you’re not sure, choose 7.4 kW; your installer will confirm."
+      />
       {preference === 'tethered' && (
         <NumberField path="charger.tetherMetres" placeholder="e.g. 5" help="Most attached cables are about 5 m. Longer ones, such as 7.5 m or 10 m, are available." />
       )}
