@@ -4,7 +4,7 @@ import { eq, notInArray } from 'drizzle-orm';
 import { cases, surveyOutcomes, uploads, type CaseRow } from '../../db/schema';
 import { runChecks, type ChecklistAnswers, type ReadinessResult, type ReadinessSettings, type UploadSummary } from '../readiness';
 import { lightRank } from '../readiness/lights';
-import { markConfirmedOnSite, withSiteFindings, type SiteFindings } from '../schemas/outcome';
+import { markConfirmedOnSite, readSiteMeasures, withSiteFindings, type SiteFindings } from '../schemas/outcome';
 import { db } from './db.server';
 import { refreshSearchTextSql } from '../../db/search-text';
 import { readinessSettings, todayInGb } from './settings.server';
@@ -28,16 +28,17 @@ export async function siteFindings(caseId: string, conn: Conn = db()): Promise<S
 
 /**
  * Readiness for one case as it stands in the database now. Values the surveyor confirmed on
- * site replace the customer's answers, and the checks resting on them are marked confirmedOnSite.
+ * site replace the customer's answers, and the checks resting on them are marked confirmedOnSite;
+ * what the office or surveyor recorded (site measures) goes in beside the answers.
  */
 export async function computeReadiness(
-  row: Pick<CaseRow, 'id' | 'checklist'>,
+  row: Pick<CaseRow, 'id' | 'checklist' | 'siteMeasures'>,
   conn: Conn = db(),
   known?: ReadinessSettings,
 ): Promise<ReadinessResult> {
   const [summaries, settings, findings] = await Promise.all([uploadSummaries(row.id, conn), known ?? readinessSettings(), siteFindings(row.id, conn)]);
   const answers = withSiteFindings(row.checklist as ChecklistAnswers, findings);
-  const result = runChecks({ answers, uploads: summaries, settings, today: todayInGb() });
+  const result = runChecks({ answers, uploads: summaries, site: readSiteMeasures(row.siteMeasures), settings, today: todayInGb() });
   return { ...result, checks: markConfirmedOnSite(result.checks, findings) };
 }
 
@@ -46,7 +47,7 @@ export async function computeReadiness(
  * the answers or uploads so the stored light never disagrees with them.
  */
 export async function refreshReadiness(caseId: string, conn: Conn = db(), settings?: ReadinessSettings): Promise<ReadinessResult | undefined> {
-  const [row] = await conn.select({ id: cases.id, checklist: cases.checklist }).from(cases).where(eq(cases.id, caseId));
+  const [row] = await conn.select({ id: cases.id, checklist: cases.checklist, siteMeasures: cases.siteMeasures }).from(cases).where(eq(cases.id, caseId));
   if (!row) return undefined;
   const result = await computeReadiness(row, conn, settings);
   await conn
