@@ -150,6 +150,8 @@ export const vehiclePatchSchema = z
   })
   .strict();
 
+const SOCKETS_MESSAGE = 'Please give the number of socket circuits, from 1 to 20, or choose “not sure”.';
+
 /** The big loads already in the home, which decide the supply headroom. */
 export const loadsPatchSchema = z
   .object({
@@ -163,8 +165,8 @@ export const loadsPatchSchema = z
     solarPv: yesNo(),
     // Counted from the labels in the consumer unit (or its photo); "not sure" is an answer.
     socketCircuits: z
-      .union([z.number().int().min(1).max(20), z.literal('unsure')], {
-        errorMap: () => ({ message: 'Please give the number of socket circuits, from 1 to 20, or choose “not sure”.' }),
+      .union([z.number().int(SOCKETS_MESSAGE).min(1, SOCKETS_MESSAGE).max(20, SOCKETS_MESSAGE), z.literal('unsure')], {
+        errorMap: () => ({ message: SOCKETS_MESSAGE }),
       })
       .nullish(),
   })
