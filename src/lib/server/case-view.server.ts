@@ -3,6 +3,7 @@ import type { CaseRow } from '../../db/schema';
 import { fieldWarnings, sectionProgress, type Checklist } from '../schemas/checklist';
 import { checkMpanCore } from '../validation/mpan';
 import type { CheckResult } from '../readiness';
+import { readSiteMeasures } from '../schemas/outcome';
 
 /** Stages in which the customer may still change their answers. */
 export const editableStages: CaseRow['stage'][] = ['invited', 'filling_in', 'sent_for_review', 'in_review', 'ready_for_survey'];
@@ -24,6 +25,7 @@ export function toCaseView(row: CaseRow) {
     region: mpan?.ok ? mpan.region : null,
     editable: editableStages.includes(row.stage),
     address: { addressLine1: row.addressLine1, addressLine2: row.addressLine2, town: row.town, postcode: row.postcode },
+    siteMeasures: readSiteMeasures(row.siteMeasures),
     readiness: { light: row.readinessLight, gapCount: row.readinessGaps, checks: row.readinessChecks as CheckResult[], at: row.readinessAt?.toISOString() ?? null },
     surveyDate: row.surveyDate,
     submittedAt: row.submittedAt?.toISOString() ?? null,
