@@ -31,6 +31,8 @@ const staffLabels: Record<string, string> = {
   'supply.looped': 'Looped supply',
   'supply.consumerUnitLocation': 'Consumer unit location',
   'supply.earthing': 'Earthing, as answered',
+  'supply.phases': 'Supply phases, as answered',
+  'supply.loads.socketCircuits': 'Socket circuits (from the consumer unit labels)',
   'supply.loads.showerKw': 'Electric shower',
   'supply.loads.cooker': 'Electric cooker',
   'supply.loads.immersion': 'Immersion heater',
@@ -48,6 +50,7 @@ const staffLabels: Record<string, string> = {
   'charger.softGroundMetres': 'Distance to soft ground',
   'charger.preference': 'Tethered or socketed',
   'charger.tetherMetres': 'Tethered cable length',
+  'charger.ratingKw': 'Charge point rating wanted',
   'charger.plan': 'Driveway plan',
 };
 
@@ -79,6 +82,8 @@ const choiceWords: Record<string, Record<string, string>> = {
   },
   'supply.looped': { yes: 'Yes', no: 'No', unsure: 'Not sure' },
   'supply.earthing': { pme: 'PME (TN-C-S)', tns: 'TN-S', tt: 'TT', unknown: 'Does not know' },
+  'supply.phases': { single: 'Single phase', three: 'Three phase', unsure: 'Not sure' },
+  'supply.loads.socketCircuits': { unsure: 'Not sure' },
   'parking.kind': {
     'attached-drive': 'Driveway attached to the home',
     garage: 'Garage attached to the home',
@@ -104,6 +109,7 @@ const numberWords: Record<string, (n: number) => string> = {
   'charger.cableRunMetres': (n) => `${n} m`,
   'charger.softGroundMetres': (n) => `${n} m`,
   'charger.tetherMetres': (n) => `${n} m`,
+  'charger.ratingKw': (n) => `${n} kW`,
 };
 
 const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });

@@ -99,7 +99,8 @@ function rangesCheck(spec: string): (codePoint: number) => boolean {
 }
 
 // Characters the pack's own texts use that the latin subset lacks, in words the font has.
-const stand_ins: Record<string, string> = { '≤': '<=', '≥': '>=', 'Ω': ' ohm', '→': '->', '≈': '~', '✓': '' };
+// Δ is written out so "IΔn" (the RCD's rated residual current) never turns into "I?n".
+const stand_ins: Record<string, string> = { '≤': '<=', '≥': '>=', 'Ω': ' ohm', '→': '->', '≈': '~', '✓': '', 'Δ': 'Delta ', '√': 'sqrt' };
 
 /**
  * Text the embedded font can draw: known stand-ins first, then accents dropped, then "?".
