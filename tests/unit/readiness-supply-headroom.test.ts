@@ -237,3 +237,12 @@ describe('supply-headroom light', () => {
     expect(partial.customerText).toMatch(/haven't heard about all of your big electrical appliances/);
   });
 });
+
+describe('an assumed charger rating', () => {
+  it('32 A assumed is the most a single-phase charge point draws, so the figure stays firm; 16 A assumed does not', () => {
+    // 44.8 + 5.739 + 32 = 82.54 A on 100 A → green even before a rating is chosen.
+    expect(headroom(100, none, {}, { ratingKw: null }).light).toBe('green');
+    // With 16 A assumed in settings: 66.54 A, but the customer may yet choose 7.4 kW → amber.
+    expect(headroom(100, none, { chargerAmps: 16 }, { ratingKw: null }).light).toBe('amber');
+  });
+});

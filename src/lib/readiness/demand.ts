@@ -54,7 +54,10 @@ export interface DemandAssessment {
   lowerBoundDemandAmps: number;
   /** True only when every load question has an answer. */
   loadsDeclared: boolean;
-  /** True when the figure is an honest estimate (all loads declared, socket circuits counted) or measured. */
+  /**
+   * True when the figure is an honest estimate (all loads declared, socket circuits counted) or
+   * measured, and the charger is chosen or assumed at the 32 A most a single-phase one draws.
+   */
   firm: boolean;
   /** Assumptions the figure rests on, in words. */
   assumptions: string[];
@@ -146,7 +149,9 @@ export function assessMaximumDemand(
     phaseDemandAmps: supplyPhases === 3 ? worst.phases.map((amps) => roundTo(amps, 2)) : null,
     lowerBoundDemandAmps: roundTo(least.withCharger, 2),
     loadsDeclared,
-    firm: measured !== null || (loadsDeclared && socketsCounted),
+    // An assumed charger of 32 A is the most a single-phase point draws, so the figure cannot be
+    // low; an assumed 16 A could be, so it is not firm.
+    firm: (measured !== null || (loadsDeclared && socketsCounted)) && (charger.chosen || charger.ampsPerPhase >= 32),
     assumptions,
   };
 }

@@ -308,7 +308,7 @@ function staffText(
       : `Smallest passing: ${recommended} mm².`;
   const factors = basis.factors.map((f) => `${f.name} ${f.value}`).join(', ');
   const phase = basis.phases === 3 ? 'three-phase, 4-core SWA' : 'single-phase, 2-core SWA';
-  const assumed = charger.chosen ? '' : ' (rating not chosen yet: assumed from settings)';
+  const assumed = charger.chosen ? '' : '; rating not chosen yet, assumed from settings';
   return `Ib ${charger.ampsPerPhase} A (${formatNumber(charger.ratingKw)} kW${assumed}) ≤ In ${design.deviceAmps} A ≤ Iz; ${phase}, ${basis.terminalTemperatureC} °C terminal basis, reference method ${basis.method}, factors ${factors} (product ${basis.factor}). ${basis.routeAssumption ? `${basis.routeAssumption}. ` : ''}Drop at Ib over ${formatNumber(metres)} m against ${design.limitPercent}% − ${design.upstreamPercent}% upstream = ${design.allowedVolts} V: ${table}. ${verdict} Route: ${route ?? 'not given'}.`;
 }
 
