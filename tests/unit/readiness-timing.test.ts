@@ -159,3 +159,12 @@ describe('lead time and light rules', () => {
     expect(() => timing('2025-04-01', NOTIFY, 'today')).toThrow(RangeError);
   });
 });
+
+describe('nothing answered but the delivery date', () => {
+  it('an unknown looped supply, loads and rating, delivery in 30 days: amber, not red', () => {
+    // The least demand is one 32 A socket circuit + 5.74 A lighting + a 16 A (3.6 kW) charger =
+    // 53.74 A ≤ 60 A (OSG Table A2; ENA), so the network step is only possible: 30 − 21 = 9 ≥ 0 → amber.
+    const result = checkTiming({ answers: { vehicle: { deliveryDate: '2025-04-02' }, supply: { mainFuseAmps: 100, looped: 'unsure', loads: {} } }, uploads: [], site: {}, settings: defaultReadinessSettings, today: TODAY });
+    expect(result.light).toBe('amber');
+  });
+});

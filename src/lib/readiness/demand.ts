@@ -49,7 +49,8 @@ export interface DemandAssessment {
   phaseDemandAmps: number[] | null;
   /**
    * The least the demand can be given what is known: the socket count at one circuit where it
-   * is not known. Used to say "over the fuse" only when it is known to be.
+   * is not known, and a 16 A charger until a rating is chosen. Used to say "over the fuse" only
+   * when it is known to be.
    */
   lowerBoundDemandAmps: number;
   /** True only when every load question has an answer. */
@@ -137,7 +138,9 @@ export function assessMaximumDemand(
   const lowest = measured !== null ? existing : estimatedItems(loads, settings, 1);
   const assumptions = assumptionsFor(loads, measured, settings, charger, answers);
   const worst = phaseDemand(existing, charger, supplyPhases);
-  const least = phaseDemand(lowest, charger, supplyPhases);
+  // Until a rating is chosen the least the charger could draw is the smallest offered, 16 A.
+  const leastCharger = charger.chosen ? charger : { ...charger, ampsPerPhase: Math.min(charger.ampsPerPhase, 16) };
+  const least = phaseDemand(lowest, leastCharger, supplyPhases);
   return {
     items: [...worst.items, chargerItem(charger)].map(toDemandItem),
     basis: measured !== null ? 'measured' : 'estimated',
