@@ -5,21 +5,16 @@ import { eq } from 'drizzle-orm';
 import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import PDFDocument from 'pdfkit';
 import sharp from 'sharp';
-import { mpanCheckDigit } from '../src/lib/validation/mpan';
 import { createCase, createUser, readinessColumns } from './factories';
+import { chandlersChecklist, daysFromNow, demoMpan, forgeChecklist, heronChecklist } from './demo-checklists';
 import { caseNotes, cases, settings, uploads, type CaseRow, type UploadRow } from '../src/db/schema';
 import { uploadLimits } from '../src/lib/schemas/uploads';
+import { readSiteMeasures } from '../src/lib/schemas/outcome';
 import { uploadStorage } from '../src/lib/server/storage/index.server';
 
 type Db = PostgresJsDatabase<Record<string, unknown>>;
 
-/** A valid 13-digit MPAN core from a distributor ID and ten digits of our choosing. */
-export function demoMpan(distributorId: string, ten: string): string {
-  const first12 = distributorId + ten;
-  return first12 + String(mpanCheckDigit(first12));
-}
-
-const daysFromNow = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
+export { demoMpan };
 
 export async function seedDemo(db: Db, password: string) {
   const admin = await createUser(db, { role: 'admin', email: 'admin@example.com', name: 'Rhiannon Vale', password });
@@ -80,13 +75,17 @@ export async function seedDemo(db: Db, password: string) {
       charger: { location: 'Side wall by the drive', cableRunMetres: 12, route: 'along-wall', softGround: true, softGroundMetres: 3, preference: 'tethered', tetherMetres: 5 },
     },
   });
-  await createCase(db, {
+  // Every answer in, every photo accepted, and a measured maximum demand from smart-meter data:
+  // the one case that clears every check.
+  const chandlers = await createCase(db, {
     customerId: sunita!.id,
     stage: 'ready_for_survey',
     addressLine1: '27 Chandlers Way',
     town: 'Quillbury',
     postcode: 'AB14 2LN',
     invitedDaysAgo: 26,
+    checklist: chandlersChecklist(),
+    siteMeasures: { measuredMaxDemandAmps: 24 },
   });
   // The two booked surveys carry full answers and evidence, so the surveyor's packs have content.
   const forge = await createCase(db, {
@@ -110,9 +109,13 @@ export async function seedDemo(db: Db, password: string) {
     surveyorId: surveyor.id,
     surveyDate: daysFromNow(6),
     checklist: heronChecklist(),
+    // The office read a maximum demand from the customer's smart-meter data and chose open-PEN
+    // protection in the charge point for the PME supply.
+    siteMeasures: { measuredMaxDemandAmps: 44, earthingMeasure: 'open-pen-device' },
   });
   await seedEvidence(db, { caseRow: heron, customerId: fen!.id, reviewerId: admin.id, items: heronEvidence() });
   await seedEvidence(db, { caseRow: forge, customerId: gareth!.id, reviewerId: admin.id, items: forgeEvidence() });
+  await seedEvidence(db, { caseRow: chandlers, customerId: sunita!.id, reviewerId: admin.id, items: chandlersEvidence() });
   await db.insert(caseNotes).values([
     { caseId: heron.id, authorId: admin.id, body: 'Tenant; landlord’s letter accepted. Side gate is unlocked on survey days. Customer would like the unit left of the front door, away from the bins.' },
     { caseId: forge.id, authorId: admin.id, body: '60 A cut-out and a long buried run to the garage: expect a network operator application. Customer happy to discuss load limiting.' },
@@ -125,66 +128,13 @@ export async function seedDemo(db: Db, password: string) {
 
 // ---- the two booked surveys: full answers and invented, clearly synthetic evidence --------------
 
-/** 8 Heron Close: a tenant with a new car on order, a two-car drive, every upload sent. */
-function heronChecklist() {
-  return {
-    about: {
-      fullName: 'Fen Ashdown', email: 'fen.ashdown@example.org', phone: '+441134960789', addressLine1: '8 Heron Close',
-      town: 'Quillbury', postcode: 'AB14 8QR', tenure: 'tenant', propertyType: 'house',
-    },
-    vehicle: {
-      make: 'Example Motors', model: 'Volta 5 Long Range', condition: 'new', vin: '1M8GDM9AXKP042788',
-      deliveryDate: daysFromNow(70), connector: 'type2', chargePort: 'front-left',
-    },
-    supply: {
-      mpanCore: demoMpan('23', '5566778899'), mainFuseAmps: 100, looped: 'no', consumerUnitLocation: 'Under the stairs, inside the front door',
-      earthing: 'pme', loads: { showerKw: 9.5, cooker: false, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false },
-    },
-    parking: { kind: 'attached-drive', cars: 2, habit: 'varies' },
-    charger: {
-      location: 'Front wall, left of the front door', cableRunMetres: 24, route: 'along-wall', softGround: true, softGroundMetres: 3,
-      preference: 'tethered', tetherMetres: 5,
-      plan: {
-        wall: { x0: 0, x1: 9 },
-        chargePoint: { x: 6.2, y: 0 },
-        bays: [
-          { x: 5.6, y: 0.6, width: 2.6, length: 5, angle: 0, forEv: true },
-          { x: 2.6, y: 0.6, width: 2.6, length: 5, angle: 0, forEv: false },
-        ],
-        car: { sizeClass: 'medium' },
-        chargePort: 'front-left',
-      },
-    },
-  };
-}
-
-/** The Old Forge: an owner with a 60 A supply, a garage and a long buried run; some evidence still open. */
-function forgeChecklist() {
-  return {
-    about: {
-      fullName: 'Gareth Quennell', email: 'gareth.quennell@example.org', phone: '+441134960321', addressLine1: 'The Old Forge, Church Hill',
-      town: 'Quillbury', postcode: 'AB15 6NP', tenure: 'owner', propertyType: 'house',
-    },
-    vehicle: {
-      make: 'Example Motors', model: 'Terrain E', condition: 'used', registration: 'LM19 RTW',
-      deliveryDate: daysFromNow(20), connector: 'type2', chargePort: 'rear-right',
-    },
-    supply: {
-      mpanCore: demoMpan('22', '3141592653'), mainFuseAmps: 60, looped: 'unsure', consumerUnitLocation: 'In the garage, on the back wall',
-      earthing: 'unknown', loads: { showerKw: 10.5, cooker: true, immersion: true, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: true },
-    },
-    parking: { kind: 'garage', cars: 1, habit: 'reverse-in' },
-    charger: {
-      location: 'Inside the garage, on the back wall', cableRunMetres: 32, route: 'buried', softGround: false, preference: 'socketed',
-      plan: {
-        wall: { x0: 0, x1: 7 },
-        chargePoint: { x: 2.2, y: 0 },
-        bays: [{ x: 1.8, y: 0, width: 3.2, length: 5.8, angle: 0, forEv: true, kind: 'garage' }],
-        car: { sizeClass: 'large' },
-        chargePort: 'rear-right',
-      },
-    },
-  };
+function chandlersEvidence(): Evidence[] {
+  return [
+    { kind: 'meter_photo', name: 'meter.jpg', status: 'accepted', svg: meterSvg },
+    { kind: 'cutout_photo', name: 'cut-out.jpg', status: 'accepted', svg: cutoutSvg },
+    { kind: 'consumer_unit_photo', name: 'consumer-unit.jpg', status: 'accepted', svg: consumerUnitSvg },
+    { kind: 'charger_location_photo', name: 'front-wall.jpg', status: 'accepted', svg: chargerSpotSvg },
+  ];
 }
 
 type Evidence = { kind: UploadRow['kind']; name: string; status: UploadRow['status']; reason?: string; svg?: string; pdf?: () => Promise<Buffer> };
@@ -350,6 +300,7 @@ async function seedEvidence(db: Db, input: { caseRow: CaseRow; customerId: strin
   const readiness = readinessColumns(
     input.caseRow.checklist as Record<string, unknown>,
     rows.map((r) => ({ kind: r.kind, status: r.status, reason: r.reason })),
+    readSiteMeasures(input.caseRow.siteMeasures),
   );
   await db
     .update(cases)

@@ -4,14 +4,14 @@ import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import { auditLog, cases, users, type Role, type Stage } from '../src/db/schema';
 import { newCaseReference } from '../src/lib/case-reference';
 import { refreshSearchTextSql } from '../src/db/search-text';
-import { runChecks, type ChecklistAnswers, type UploadSummary } from '../src/lib/readiness';
+import { runChecks, type ChecklistAnswers, type SiteMeasures, type UploadSummary } from '../src/lib/readiness';
 import { lightRank } from '../src/lib/readiness/lights';
 
 const today = () => new Date().toISOString().slice(0, 10);
 
-/** The readiness columns for a checklist and its uploads (none by default), with default settings. */
-export function readinessColumns(checklist: Record<string, unknown>, uploads: UploadSummary[] = []) {
-  const r = runChecks({ answers: checklist as ChecklistAnswers, uploads, today: today() });
+/** The readiness columns for a checklist, its uploads (none by default) and site measures, with default settings. */
+export function readinessColumns(checklist: Record<string, unknown>, uploads: UploadSummary[] = [], site: SiteMeasures = {}) {
+  const r = runChecks({ answers: checklist as ChecklistAnswers, uploads, site, today: today() });
   return { readinessLight: r.light, readinessRank: lightRank[r.light], readinessGaps: r.gapCount, readinessChecks: r.checks, readinessAt: new Date() };
 }
 
@@ -44,6 +44,8 @@ export type CaseInput = {
   surveyorId?: string | null;
   surveyDate?: string | null;
   invitedDaysAgo?: number;
+  /** What the office or surveyor recorded (measured maximum demand, earthing measure, RA, IΔn). */
+  siteMeasures?: SiteMeasures;
 };
 
 /** Inserts a case with a fresh reference, and the audit row an invitation makes. */
@@ -64,7 +66,8 @@ export async function createCase(db: Db, input: CaseInput) {
           surveyorId: input.surveyorId ?? null,
           surveyDate: input.surveyDate ?? null,
           invitedAt,
-          ...readinessColumns(input.checklist ?? {}),
+          siteMeasures: input.siteMeasures ?? {},
+          ...readinessColumns(input.checklist ?? {}, [], input.siteMeasures ?? {}),
         })
         .returning();
       await db.execute(refreshSearchTextSql(row!.id));

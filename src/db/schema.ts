@@ -125,6 +125,9 @@ export const cases = pgTable(
     readinessGaps: integer('readiness_gaps').notNull().default(0),
     readinessChecks: jsonb('readiness_checks').notNull().default([]),
     readinessAt: timestamp('readiness_at', { withTimezone: true }),
+    // What the office or surveyor recorded that no customer answer can supply (SiteMeasures in
+    // src/lib/readiness/types.ts): measured maximum demand, the 722.411.4.1 measure, RA and IΔn.
+    siteMeasures: jsonb('site_measures').notNull().default({}),
     remindersSent: integer('reminders_sent').notNull().default(0),
     // Lower-cased (so LIKE, cheaper than ILIKE, will do) customer name, e-mail, postcode without spaces, reference and MPAN: one
     // trigram-indexed column, so the office's search is one indexed ILIKE, not an OR over a join.
@@ -262,6 +265,8 @@ export const surveyOutcomes = pgTable('survey_outcomes', {
   outcome: surveyOutcomeEnum('outcome').notNull(),
   confirmedEarthing: text('confirmed_earthing'),
   confirmedFuseAmps: integer('confirmed_fuse_amps'),
+  // The BS 7671 722.411.4.1 measure chosen for PME earthing, as in earthingMeasureValues.
+  earthingMeasure: text('earthing_measure'),
   // Measured or noted values, e.g. { zeOhms: 0.21, cableRunMetres: 14, pfcKa: 1.6 }.
   measurements: jsonb('measurements').notNull().default({}),
   notes: text('notes'),

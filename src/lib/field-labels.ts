@@ -22,7 +22,8 @@ export const fieldLabels: Record<string, string> = {
   'supply.looped': 'whether the supply is shared (looped) with a neighbour',
   'supply.consumerUnitLocation': 'where the consumer unit (fuse box) is',
   'supply.earthing': 'the earthing type (“I don’t know” is fine)',
-  'supply.loads': 'the big electrical appliances in the home',
+  'supply.phases': 'whether the supply is single or three phase (“not sure” is fine)',
+  'supply.loads': 'the big electrical appliances in the home, and how many socket circuits there are',
   'parking.kind': 'where the car will park',
   'parking.cars': 'how many cars park there',
   'parking.habit': 'how the car is usually parked',
@@ -33,6 +34,7 @@ export const fieldLabels: Record<string, string> = {
   'charger.softGroundMetres': 'how far the soft ground is',
   'charger.preference': 'tethered or socketed',
   'charger.tetherMetres': 'the length of the tethered cable',
+  'charger.ratingKw': 'how powerful a charger you would like',
 };
 
 /** The plain words for a dotted field path, falling back to the path itself. */

@@ -138,6 +138,7 @@ describe('the customer checklist, in Chromium', () => {
     await group(page, 'Is the supply shared with a neighbour (looped)?').getByRole('radio', { name: 'No', exact: true }).check();
     await page.getByLabel('Where is your consumer unit (fuse box)?').fill('Under the stairs');
     await page.getByRole('radio', { name: 'I don’t know' }).check();
+    await page.getByRole('radio', { name: 'Single phase' }).check();
     await page.getByLabel('Electric shower rating').fill('9.5');
     await group(page, 'An electric cooker, oven or hob?').getByRole('radio', { name: 'Yes', exact: true }).check();
     await group(page, 'An immersion heater for hot water?').getByRole('radio', { name: 'No', exact: true }).check();
@@ -145,6 +146,7 @@ describe('the customer checklist, in Chromium', () => {
     // Storage heaters are left blank on purpose: the one gap the send dialog must list.
     await group(page, 'Another EV charge point already?').getByRole('radio', { name: 'No', exact: true }).check();
     await group(page, 'Solar panels or a home battery?').getByRole('radio', { name: 'Yes', exact: true }).check();
+    await group(page, 'How many socket circuits does your fuse box have?').getByRole('radio', { name: '3', exact: true }).check();
     await waitSaved(page);
     await snapBoth(page, 'checklist-supply');
 
@@ -165,6 +167,7 @@ describe('the customer checklist, in Chromium', () => {
     await page.getByLabel('How far is the soft ground from the charge point?').fill('3');
     await page.getByRole('radio', { name: 'Tethered: cable attached' }).check();
     await page.getByLabel('Length of the attached cable').fill('5');
+    await page.getByRole('radio', { name: '7.4 kW' }).check();
     await waitSaved(page);
     await snapBoth(page, 'checklist-charger');
 
@@ -224,7 +227,8 @@ describe('the customer checklist, in Chromium', () => {
         looped: 'no',
         consumerUnitLocation: 'Under the stairs',
         earthing: 'unknown',
-        loads: { showerKw: 9.5, cooker: true, immersion: false, heatPumpKw: 0, otherEvCharger: false, solarPv: true },
+        phases: 'single',
+        loads: { showerKw: 9.5, cooker: true, immersion: false, heatPumpKw: 0, otherEvCharger: false, solarPv: true, socketCircuits: 3 },
       },
       parking: { kind: 'attached-drive', cars: 2, habit: 'reverse-in' },
       charger: {
@@ -235,6 +239,7 @@ describe('the customer checklist, in Chromium', () => {
         softGroundMetres: 3,
         preference: 'tethered',
         tetherMetres: 5,
+        ratingKw: 7.4,
       },
     });
     expect(problemsOf(page)).toEqual([]);

@@ -109,10 +109,11 @@ describe('the driveway plan, in Chromium', () => {
 
   it('adds a garage and a bay behind it, and measures only the bay the electric car uses', async () => {
     // Bay 2 goes behind bay 1: y 5.3..10.1, centre (3, 7.7), car body y 5.45..9.95; charge point
-    // at (3, 0). Nose in: front-left port (3.925, 6.25), round the front corner (3.925, 5.45):
-    // √(0.925² + 5.45²) = √30.558125 = 5.5279, + 0.8 + 1 slack = 7.328 m → "needs 7.3 m".
-    // Reversed: port (2.075, 9.15), round (2.075, 5.45): 5.5279 + 3.7 + 1 = 10.228 → "needs 10.2 m".
-    // (The car in bay 1 is not an obstacle on the plan: plan.ts routes round the car being charged.)
+    // at (3, 0). The car in bay 1 (x 2.075..3.925, y 0.65..5.15) is an obstacle too, since the
+    // customer has not said there is only one car. Nose in: front-left port (3.925, 6.25): round bay
+    // 1's near corner (3.925, 0.65), √(0.925² + 0.65²) = √1.278125 = 1.1305, then along its side and
+    // through the gap to the port, 6.25 − 0.65 = 5.6: 6.7305 + 1 slack = 7.731 m → "needs 7.7 m".
+    // Reversed: port (2.075, 9.15), round (2.075, 0.65): 1.1305 + 8.5 + 1 = 10.631 → "needs 10.6 m".
     const user = await createUser(db, { role: 'customer', name: 'Tomasz Ferrant' });
     const row = await createCase(db, {
       customerId: user.id,
@@ -124,12 +125,12 @@ describe('the driveway plan, in Chromium', () => {
     await page.getByRole('button', { name: 'Add one behind it' }).click();
     // No bay marked: both are measured, each way (bay 1 as before: 2.9 m and 5.8 m).
     await expect(verdictText(page, 'nose-in-1')).resolves.toContain('2.9 m of 5 m');
-    await expect(verdictText(page, 'nose-in-2')).resolves.toContain('needs 7.3 m');
+    await expect(verdictText(page, 'nose-in-2')).resolves.toContain('needs 7.7 m');
     await page.getByTestId('plan-section-bay-1').getByLabel('Garage').check();
     await expect(page.getByTestId('plan-bay-1').getAttribute('aria-label')).resolves.toMatch(/^Garage 1,/);
     await page.getByTestId('plan-section-ev-bay').getByLabel('Bay 2').check();
-    await expect(verdictText(page, 'nose-in')).resolves.toContain('Doesn’t reach when you park nose in — needs 7.3 m');
-    await expect(verdictText(page, 'reverse-in')).resolves.toContain('Doesn’t reach when you reverse in — needs 10.2 m');
+    await expect(verdictText(page, 'nose-in')).resolves.toContain('Doesn’t reach when you park nose in — needs 7.7 m');
+    await expect(verdictText(page, 'reverse-in')).resolves.toContain('Doesn’t reach when you reverse in — needs 10.6 m');
     await expect(page.getByTestId('plan-verdict-nose-in-1').count()).resolves.toBe(0);
     await page.getByTestId('plan-way-toggle').getByText('Reversed in').click();
     await expect(page.getByTestId('plan-cable').count()).resolves.toBe(1);

@@ -141,6 +141,20 @@ describe('PATCH /api/cases/:id/checklist', () => {
     expect(r.body.checklist.supply.mainFuseAmps).toBeNull();
   });
 
+  it('refuses an 11 or 22 kW charge point on a single-phase supply, saving nothing', async () => {
+    // An 11 or 22 kW charge point needs three phases (11 kW ≈ 16 A, 22 kW ≈ 32 A per phase: common practice).
+    expect((await patch(c, { supply: { phases: 'single' } })).status).toBe(200);
+    const versionBefore = (await rowOf(c)).version;
+    const r = await patch(c, { charger: { ratingKw: 22 } });
+    expect(r.status).toBe(422);
+    expect(r.body.error.fields['charger.ratingKw']).toMatch(/three-phase supply/);
+    expect((await rowOf(c)).version).toBe(versionBefore);
+    // Changing both at once is fine, and so is 7.4 kW on single phase.
+    expect((await patch(c, { supply: { phases: 'three' }, charger: { ratingKw: 22 } })).status).toBe(200);
+    expect((await patch(c, { supply: { phases: 'single' } })).status).toBe(422);
+    expect((await patch(c, { supply: { phases: 'single' }, charger: { ratingKw: 7.4 } })).status).toBe(200);
+  });
+
   it('refuses unknown sections and fields with their dotted paths', async () => {
     const r = await patch(c, { supply: { mpan: '1' }, garden: {} });
     expect(r.status).toBe(422);

@@ -202,13 +202,19 @@ describe('staff and settings', () => {
   });
 
   it('changes a readiness threshold and recomputes open cases', async () => {
-    // 80 A fuse, no declared loads: 10 A baseline + 32 A charger = 42 A, headroom 38 A (green).
-    const { case: c } = await newCustomer({ checklist: { supply: { mainFuseAmps: 80, loads: { showerKw: 0, cooker: false, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false } } } });
+    // 80 A fuse, every load answered "none", one socket circuit, a 3.6 kW charger (IET OSG Table A2,
+    // second-hand): 32 A + lighting 66% × 2000 / 230 = 5.74 A + 16 A (722.311) = 53.74 A → 26.26 A spare (green).
+    const { case: c } = await newCustomer({
+      checklist: {
+        supply: { mainFuseAmps: 80, loads: { showerKw: 0, cooker: false, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false, socketCircuits: 1 } },
+        charger: { ratingKw: 3.6 },
+      },
+    });
     const before = await admin.json(`/api/cases/${c!.id}/readiness`);
     expect(before.body.checks.find((x: { id: string }) => x.id === 'supply-headroom').light).toBe('green');
     const settings = await admin.json('/api/settings');
     expect(settings.body.readiness.headroomMarginAmps).toBe(10);
-    // A 40 A margin makes 38 A of headroom "close": amber.
+    // A 40 A margin makes 26.26 A of headroom "close": amber.
     const put = await admin.send('PUT', '/api/settings', { readiness: { headroomMarginAmps: 40 } });
     expect(put.status).toBe(200);
     try {
@@ -217,6 +223,9 @@ describe('staff and settings', () => {
       expect((await caseRow(c!.id)).readinessChecks).toEqual(expect.arrayContaining([expect.objectContaining({ id: 'supply-headroom', light: 'amber' })]));
       expect((await admin.send('PUT', '/api/settings', { readiness: { headroomMarginAmps: -1 } })).status).toBe(422);
       expect((await admin.send('PUT', '/api/settings', { readiness: { noSuchThing: 1 } })).status).toBe(422);
+      // Only real ratings: a 20 A charger or a 45 A device is refused.
+      expect((await admin.send('PUT', '/api/settings', { readiness: { chargerAmps: 20 } })).status).toBe(422);
+      expect((await admin.send('PUT', '/api/settings', { readiness: { protectiveDeviceAmps: 45 } })).status).toBe(422);
     } finally {
       await admin.send('PUT', '/api/settings', { readiness: { headroomMarginAmps: 10 } });
     }

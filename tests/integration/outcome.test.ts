@@ -23,12 +23,12 @@ beforeAll(async () => {
 
 // The customer said PME with no open soil near the charge point, and a 60 A cut-out, with no big loads:
 // - earthing: PME without a nearby electrode is amber (BS 7671:2018+A2:2022 Regulation 722.411.4.1);
-// - headroom: 10 A baseline (settings, common practice) + 32 A charger at full load (Regulation 722.311)
-//   = 42 A against 60 A leaves 18 A, but a 60 A cut-out is at least amber (common practice: 60 A often
-//   needs an upgrade).
+// - headroom (IET On-Site Guide Table A2, second-hand via The Electrician's Guide Table 6.2): one
+//   socket circuit 32 A + lighting 66% × 2000 / 230 = 5.74 A + a 3.6 kW charger at 16 A (Regulation
+//   722.311) = 53.74 A against 60 A leaves 6.26 A, under the 10 A margin: amber.
 const checklist = {
-  supply: { mpanCore: '1312345678907', mainFuseAmps: 60, looped: 'no', earthing: 'pme', loads: { showerKw: 0, cooker: false, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false } },
-  charger: { cableRunMetres: 8, route: 'through-wall', softGround: false, preference: 'socketed' },
+  supply: { mpanCore: '1312345678907', mainFuseAmps: 60, looped: 'no', earthing: 'pme', phases: 'single', loads: { showerKw: 0, cooker: false, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false, socketCircuits: 1 } },
+  charger: { cableRunMetres: 8, route: 'through-wall', softGround: false, preference: 'socketed', ratingKw: 3.6 },
   parking: { kind: 'attached-drive', cars: 1, habit: 'nose-in' },
 };
 
@@ -95,7 +95,7 @@ describe('POST /api/cases/:id/outcome — recording the visit', () => {
       outcome: 'go_ahead_with_changes',
       confirmedEarthing: 'tt',
       confirmedFuseAmps: 100,
-      measurements: { zeOhms: 21, electrodeOhms: 85, supplyVolts: 238.5 },
+      measurements: { zeOhms: 21, electrodeOhms: 85, rcdIdnMilliamps: 30, supplyVolts: 238.5 },
       notes: 'TT with an existing rod; move the charge point 1 m left of the door.',
     });
     expect(r.status).toBe(200);
@@ -103,7 +103,7 @@ describe('POST /api/cases/:id/outcome — recording the visit', () => {
     expect(r.body.officeTold).toBe(true);
 
     const [saved] = await db.select().from(schema.surveyOutcomes).where(eq(schema.surveyOutcomes.caseId, c.id));
-    expect(saved).toMatchObject({ outcome: 'go_ahead_with_changes', confirmedEarthing: 'tt', confirmedFuseAmps: 100, surveyorId, measurements: { zeOhms: 21, electrodeOhms: 85, supplyVolts: 238.5 } });
+    expect(saved).toMatchObject({ outcome: 'go_ahead_with_changes', confirmedEarthing: 'tt', confirmedFuseAmps: 100, surveyorId, measurements: { zeOhms: 21, electrodeOhms: 85, rcdIdnMilliamps: 30, supplyVolts: 238.5 } });
 
     const log = (await admin.json(`/api/cases/${c.id}/audit`)).body.items as { action: string; before: any; after: any; actorId: string }[];
     const moved = log.find((e) => e.action === 'stage.changed');
@@ -118,9 +118,9 @@ describe('POST /api/cases/:id/outcome — recording the visit', () => {
     expect(ours?.text).toContain('move the charge point 1 m left');
 
     // Confirmed values replace the customer's answers:
-    // - TT earthing: an installation earth electrode exists, so the 722.411.4.1 PME restriction does not
-    //   apply (BS 7671 Regulation 722.411.4.1; RA × IΔn ≤ 50 V to be tested, 411.5.3): green.
-    // - 100 A cut-out: 42 A demand leaves 58 A headroom, above the margin, and 100 A is not a small fuse: green.
+    // - TT earthing: the 722.411.4.1 PME restriction does not apply; RA 85 Ω × IΔn 30 mA = 2.55 V ≤ 50 V
+    //   (BS 7671 411.5.3) and 85 Ω ≤ 200 Ω: green.
+    // - 100 A cut-out: 53.74 A demand leaves 46.26 A headroom, above the margin, and 100 A is not a small fuse: green.
     const after = await surveyor.json(`/api/cases/${c.id}/readiness`);
     const earthing = checkOf(after.body.checks, 'earthing');
     expect(earthing).toMatchObject({ light: 'green', confirmedOnSite: true });
@@ -128,7 +128,11 @@ describe('POST /api/cases/:id/outcome — recording the visit', () => {
     const headroom = checkOf(after.body.checks, 'supply-headroom');
     expect(headroom).toMatchObject({ light: 'green', confirmedOnSite: true });
     expect(headroom.staffText).toContain('100 A cut-out fuse (confirmed on site).');
-    expect(headroom.staffText).toContain('headroom 58 A');
+    expect(headroom.staffText).toContain('Headroom on the 100 A cut-out 46.26 A');
+    expect(earthing.staffText).toContain('RA 85 Ω × IΔn 30 mA = 2.55 V');
+    // RA and IΔn went into the case's site measures, where the checks read them.
+    const [row] = await db.select().from(schema.cases).where(eq(schema.cases.id, c.id));
+    expect(row!.siteMeasures).toEqual({ electrodeOhms: 85, rcdIdnMilliamps: 30 });
     expect(checkOf(after.body.checks, 'parking').confirmedOnSite).toBeUndefined();
     // The stored readiness (what the office queue and case page read) says the same.
     const view = (await admin.json(`/api/cases/${c.id}`)).body;
@@ -157,5 +161,71 @@ describe('POST /api/cases/:id/outcome — recording the visit', () => {
     // Nothing confirmed, so no check claims to be.
     const checks = (await admin.json(`/api/cases/${c.id}/readiness`)).body.checks as { confirmedOnSite?: boolean }[];
     expect(checks.some((check) => check.confirmedOnSite)).toBe(false);
+  });
+});
+
+describe('PUT /api/cases/:id/site-measures — what the office or surveyor records', () => {
+  const put = (client: Client, id: string, body: unknown) => client.send('PUT', `/api/cases/${id}/site-measures`, body);
+
+  it('a measured maximum demand replaces the Table A2 estimate, and a 722.411.4.1 measure settles PME', async () => {
+    const c = await bookedCase('ready_for_survey');
+    const before = (await admin.json(`/api/cases/${c.id}/readiness`)).body.checks;
+    // 53.74 A estimated on 60 A: 6.26 A spare < 10 A margin → amber; PME with no measure → amber.
+    expect(checkOf(before, 'supply-headroom').light).toBe('amber');
+    expect(checkOf(before, 'earthing').light).toBe('amber');
+
+    // Logger data: 12 A existing + 16 A charger = 28 A on 60 A → 32 A spare; but a 60 A cut-out is
+    // at least amber (common practice). The measure: an open-PEN device → earthing green.
+    const r = await put(admin, c.id, { measuredMaxDemandAmps: 12, earthingMeasure: 'open-pen-device' });
+    expect(r.status).toBe(200);
+    expect(r.body.siteMeasures).toEqual({ measuredMaxDemandAmps: 12, earthingMeasure: 'open-pen-device' });
+    const after = (await admin.json(`/api/cases/${c.id}/readiness`)).body.checks;
+    expect(checkOf(after, 'earthing').light).toBe('green');
+    const headroom = checkOf(after, 'supply-headroom') as { light: string; staffText: string; figures?: unknown };
+    expect(headroom.staffText).toMatch(/existing 12 A measured/);
+    expect(headroom.light).toBe('amber');
+    // The stored readiness agrees, and the change is in the audit trail.
+    const [row] = await db.select().from(schema.cases).where(eq(schema.cases.id, c.id));
+    expect(row!.readinessChecks).toEqual(expect.arrayContaining([expect.objectContaining({ id: 'earthing', light: 'green' })]));
+    const log = (await admin.json(`/api/cases/${c.id}/audit`)).body.items as { action: string; after: unknown }[];
+    expect(log.find((e) => e.action === 'site_measures.recorded')?.after).toEqual({ measuredMaxDemandAmps: 12, earthingMeasure: 'open-pen-device' });
+
+    // null clears one value and leaves the other.
+    const cleared = await put(surveyor, c.id, { earthingMeasure: null });
+    expect(cleared.status).toBe(200);
+    expect(cleared.body.siteMeasures).toEqual({ measuredMaxDemandAmps: 12 });
+  });
+
+  it('TT by the electrode test: RA 1800 Ω at 30 mA is 54 V > 50 V, red', async () => {
+    const c = await bookedCase('ready_for_survey');
+    await put(admin, c.id, { earthingMeasure: 'tt-electrode', electrodeOhms: 1800, rcdIdnMilliamps: 30 });
+    expect(checkOf((await admin.json(`/api/cases/${c.id}/readiness`)).body.checks, 'earthing').light).toBe('red');
+    await put(admin, c.id, { electrodeOhms: 100 });
+    expect(checkOf((await admin.json(`/api/cases/${c.id}/readiness`)).body.checks, 'earthing').light).toBe('green');
+  });
+
+  it('refuses bad input with 422 by field and changes nothing; customers and other surveyors 404', async () => {
+    const c = await bookedCase('ready_for_survey');
+    const bad = await put(admin, c.id, { measuredMaxDemandAmps: -3, earthingMeasure: 'a rod somewhere' });
+    expect(bad.status).toBe(422);
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['earthingMeasure', 'measuredMaxDemandAmps']);
+    expect((await put(admin, c.id, { ohms: 3 })).status).toBe(422);
+    expect((await put(admin, c.id, {})).status).toBe(422);
+    const [row] = await db.select().from(schema.cases).where(eq(schema.cases.id, c.id));
+    expect(row!.siteMeasures).toEqual({});
+    expect((await put(otherSurveyor, c.id, { measuredMaxDemandAmps: 10 })).status).toBe(404);
+    const { client: customer } = await newCustomer({});
+    expect([403, 404]).toContain((await put(customer, c.id, { measuredMaxDemandAmps: 10 })).status);
+    expect((await put(new Client(), c.id, { measuredMaxDemandAmps: 10 })).status).toBe(401);
+  });
+
+  it('an outcome with a measure for PME turns the earthing check green', async () => {
+    const c = await bookedCase();
+    const r = await post(surveyor, c.id, { outcome: 'go_ahead', earthingMeasure: 'installation-electrode', measurements: { measuredMaxDemandAmps: 20 } });
+    expect(r.status).toBe(200);
+    const [saved] = await db.select().from(schema.surveyOutcomes).where(eq(schema.surveyOutcomes.caseId, c.id));
+    expect(saved!.earthingMeasure).toBe('installation-electrode');
+    const checks = (await admin.json(`/api/cases/${c.id}/readiness`)).body.checks;
+    expect(checkOf(checks, 'earthing').light).toBe('green');
   });
 });

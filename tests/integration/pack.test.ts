@@ -19,11 +19,13 @@ let reference: string;
 const MPAN = '1312345678907';
 const POSTCODE = 'AB12 3DE';
 
-// Cable run 32 m at the charger's 32 A, 2-core armoured copper, 90 °C (BS 7671:2018+A2:2022 Table 4E4B),
-// against 5% of 230 V = 11.5 V (Appendix 4, Table 4Ab); V = mV/A/m × I × L / 1000:
-//   2.5 mm²: 19  × 32 × 32 / 1000 = 19.456 V  fails
-//   4 mm²:   12  × 32 × 32 / 1000 = 12.288 V  fails
-//   6 mm²:   7.9 × 32 × 32 / 1000 =  8.0896 V passes (and Table 4E4A method C gives 62 A ≥ 32 A)
+// Cable run 32 m buried, a 7.4 kW (32 A) charger on a 32 A device: Ib ≤ In ≤ Iz (BS 7671:2018+A2:2022
+// Regulation 433.1.1), 70 °C terminals, so Table 4D4A method D capacities (from memory): 2.5 mm² 29 A,
+// 4 mm² 37 A, 6 mm² 46 A. Drop from Table 4E4B (2-core, 90 °C) against 5% of 230 V = 11.5 V
+// (Appendix 4, Table 4Ab); V = mV/A/m × I × L / 1000:
+//   2.5 mm²: 29 A < In 32 A                        fails (Iz below In)
+//   4 mm²:   12  × 32 × 32 / 1000 = 12.288 V        fails (drop)
+//   6 mm²:   7.9 × 32 × 32 / 1000 =  8.0896 V, 46 A passes
 // so the smallest size that passes is 6 mm².
 const CABLE_RUN_METRES = 32;
 const RECOMMENDED = '6 mm²';
@@ -32,10 +34,10 @@ const checklist = {
   about: { fullName: 'Pia Lindqvist', email: 'pia@example.org', phone: '+441134960111', addressLine1: '21 Weaver Street', town: 'Quillbury', postcode: POSTCODE, tenure: 'owner', propertyType: 'house' },
   // The connector is left out on purpose: it must show as an open gap.
   vehicle: { make: 'Example Motors', model: 'Volta 3', condition: 'used', registration: 'LM19 RTW', deliveryDate: '2099-06-01', chargePort: 'front-left' },
-  supply: { mpanCore: MPAN, mainFuseAmps: 100, looped: 'no', consumerUnitLocation: 'Hall cupboard', earthing: 'pme', loads: { showerKw: 0, cooker: false, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false } },
+  supply: { mpanCore: MPAN, mainFuseAmps: 100, looped: 'no', consumerUnitLocation: 'Hall cupboard', earthing: 'pme', phases: 'single', loads: { showerKw: 0, cooker: false, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false, socketCircuits: 2 } },
   parking: { kind: 'attached-drive', cars: 1, habit: 'nose-in' },
   charger: {
-    location: 'Garage side wall', cableRunMetres: CABLE_RUN_METRES, route: 'buried', softGround: false, preference: 'tethered', tetherMetres: 5,
+    location: 'Garage side wall', cableRunMetres: CABLE_RUN_METRES, route: 'buried', softGround: false, preference: 'tethered', tetherMetres: 5, ratingKw: 7.4,
     plan: { wall: { x0: 0, x1: 8 }, chargePoint: { x: 4, y: 0 }, bays: [{ x: 2.8, y: 0.5, width: 2.4, length: 4.8, angle: 0 }], car: { sizeClass: 'medium' }, chargePort: 'front-left' },
   },
 };
@@ -103,6 +105,13 @@ describe('GET /api/cases/:id/pack.pdf', () => {
     expect(all).toContain(POSTCODE);
     expect(all).toContain(`Recommended: ${RECOMMENDED}`);
     expect(all).toContain('Passes: recommended');
+    // The sizing basis and the rejected 2.5 mm² row, the demand basis and the earthing measure still to record.
+    // (The embedded font has no ≤, so the PDF writes "<=".)
+    expect(all).toContain('Ib 32 A <= In 32 A <= Iz; 70 °C terminals; method D');
+    expect(all).not.toContain('I?n');
+    expect(all).toContain('Iz below In');
+    expect(all).toContain('Estimated by IET On-Site Guide Table A2, every load answered');
+    expect(all).toContain('Not recorded yet: amber until it is');
     // Open gaps: the missing connector answer and the missing consumer unit photo, in the customer's words,
     // and the cable-run check, amber because a buried 32 m run is long and costly (common practice).
     expect(all).toContain('the car’s charging plug type');
@@ -140,6 +149,8 @@ describe('the pack page /surveys/cases/:id', () => {
     expect(html).toContain(MPAN);
     expect(html).toContain(POSTCODE);
     expect(html).toContain(`<strong data-testid="recommended-size">${RECOMMENDED}</strong>`);
+    expect(html).toMatch(/data-testid="cable-basis">Ib 32 A ≤ In 32 A ≤ Iz; 70 °C terminals; method D/);
+    expect(html).toMatch(/data-testid="earthing-measure">Not recorded yet/);
     expect(html).toContain('Upload a photo of your consumer unit (fuse box).');
     expect(html).toContain('Never open the cut-out, the meter or the consumer unit, or remove covers: photos only.');
     expect(html).toMatch(/@page\s*\{\s*size:\s*A4;\s*margin:\s*15mm;?\s*\}/);

@@ -11,6 +11,7 @@ import {
   sectionRequiredFields,
   supplyPatchSchema,
   zodIssuesToFields,
+  checklistConflicts,
 } from '../../src/lib/schemas/checklist';
 import { VIN_CHECK_DIGIT_WARNING } from '../../src/lib/validation/vin';
 
@@ -51,7 +52,8 @@ const complete: Checklist = {
     looped: 'no',
     consumerUnitLocation: 'Under the stairs',
     earthing: 'unknown',
-    loads: { showerKw: 0, cooker: true, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false },
+    phases: 'single',
+    loads: { showerKw: 0, cooker: true, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false, socketCircuits: 'unsure' },
   },
   parking: { kind: 'attached-drive', cars: 1, habit: 'nose-in' },
   charger: {
@@ -60,6 +62,7 @@ const complete: Checklist = {
     route: 'through-wall',
     softGround: false,
     preference: 'socketed',
+    ratingKw: 7.4,
   },
 };
 
@@ -276,5 +279,45 @@ describe('zodIssuesToFields', () => {
       { code: 'custom', path: ['about', 'town'], message: 'town' },
     ]);
     expect(zodIssuesToFields(error)).toEqual({ 'supply.mpanCore': 'first', 'about.town': 'town' });
+  });
+});
+
+describe('phases, socket circuits and charge-point ratings', () => {
+  it('accepts single, three and not sure for the supply phases', () => {
+    for (const phases of ['single', 'three', 'unsure']) expect(parse({ supply: { phases } }).data).toEqual({ supply: { phases } });
+    expect(parse({ supply: { phases: 'two' } }).fields['supply.phases']).toMatch(/single phase, three phase or not sure/);
+  });
+
+  it('accepts a count of socket circuits or "unsure", nothing else', () => {
+    expect(parse({ supply: { loads: { socketCircuits: 3 } } }).data).toEqual({ supply: { loads: { socketCircuits: 3 } } });
+    expect(parse({ supply: { loads: { socketCircuits: 'unsure' } } }).data).toEqual({ supply: { loads: { socketCircuits: 'unsure' } } });
+    expect(parse({ supply: { loads: { socketCircuits: 0 } } }).fields['supply.loads.socketCircuits']).toMatch(/from 1 to 20/);
+    expect(parse({ supply: { loads: { socketCircuits: 2.5 } } }).fields['supply.loads.socketCircuits']).toBeDefined();
+  });
+
+  it('offers only real charge-point ratings: 3.6, 7.4, 11 and 22 kW', () => {
+    for (const ratingKw of [3.6, 7.4, 11, 22]) expect(parse({ charger: { ratingKw } }).data).toEqual({ charger: { ratingKw } });
+    for (const ratingKw of [7, 7.2, 32, 0]) expect(parse({ charger: { ratingKw } }).fields['charger.ratingKw']).toMatch(/3\.6, 7\.4, 11 or 22 kW/);
+  });
+
+  it('refuses 11 or 22 kW on a supply said to be single phase (they need three phases)', () => {
+    expect(checklistConflicts({ supply: { phases: 'single' }, charger: { ratingKw: 22 } })).toHaveProperty('charger.ratingKw');
+    expect(checklistConflicts({ supply: { phases: 'single' }, charger: { ratingKw: 11 } })).toHaveProperty('charger.ratingKw');
+    expect(checklistConflicts({ supply: { phases: 'three' }, charger: { ratingKw: 22 } })).toEqual({});
+    expect(checklistConflicts({ supply: { phases: 'unsure' }, charger: { ratingKw: 22 } })).toEqual({});
+    expect(checklistConflicts({ supply: { phases: 'single' }, charger: { ratingKw: 7.4 } })).toEqual({});
+  });
+
+  it('counts the phases, socket circuits and rating as required answers', () => {
+    const { phases: _p, ...supply } = complete.supply!;
+    expect(sectionProgress({ ...complete, supply })[2]!.missing).toEqual(['phases']);
+    const { socketCircuits: _s, ...loads } = complete.supply!.loads!;
+    expect(sectionProgress({ ...complete, supply: { ...complete.supply, loads } })[2]!.missing).toEqual(['loads.socketCircuits']);
+    const { ratingKw: _r, ...charger } = complete.charger!;
+    expect(sectionProgress({ ...complete, charger })[4]!.missing).toEqual(['ratingKw']);
+  });
+
+  it('old saved answers without the new fields still parse', () => {
+    expect(parse({ supply: { mainFuseAmps: 100, loads: { showerKw: 9.5, cooker: true } }, charger: { preference: 'tethered' } }).fields).toEqual({});
   });
 });

@@ -226,6 +226,7 @@ describe('cable-reach check', () => {
     return checkCableReach({
       answers: { charger, parking: { habit }, vehicle: { chargePort: vehiclePort } },
       uploads: [],
+      site: {},
       settings: defaultReadinessSettings,
       today: '2025-03-03',
     });
@@ -257,6 +258,7 @@ describe('cable-reach check', () => {
     const result = checkCableReach({
       answers: { charger: { preference: 'socketed', plan: plan({ chargePort: 'side-right' }) }, parking: { habit: 'nose-in' } },
       uploads: [],
+      site: {},
       settings: resolveReadinessSettings({ defaultCustomerCableMetres: 7.5 }),
       today: '2025-03-03',
     });
@@ -292,5 +294,42 @@ describe('cable-reach check', () => {
     expect(result.customerText).toContain('7.1 m');
     const ways = (result.figures.verdicts as { way: ParkingWay }[]).map((v) => v.way);
     expect(ways).toEqual(['nose-in', 'reverse-in']);
+  });
+});
+
+describe('two bays: the car in the other bay is an obstacle', () => {
+  // Bay 1 at x 0..2.4 and bay 2 (the electric car's) at x 2.4..4.8, both 0°, y 0.5..5.3.
+  // Medium cars: bay 1 footprint x 0.275..2.125, bay 2 x 2.675..4.525, both y 0.65..5.15.
+  // Charge point C = (0.2, 0). The electric car noses in (nose to the wall, facing −y, so its
+  // right is −x): rear-right port at x 3.6 − 0.925 = 2.675, y 2.9 + 2.25 − 0.8 = 4.35.
+  const bay1: PlanBay = { x: 0, y: 0.5, width: 2.4, length: 4.8, angle: 0 };
+  const bay2: PlanBay = { x: 2.4, y: 0.5, width: 2.4, length: 4.8, angle: 0, forEv: true };
+  const twoBays = plan({ chargePoint: { x: 0.2, y: 0 }, bays: [bay1, bay2], chargePort: 'rear-right' });
+
+  it('goes round the car in bay 1 when it is there', () => {
+    // Empty bay 1: straight, √(2.475² + 4.35²) = √25.048125 = 5.0048 → 6.005 m with 1 m slack.
+    // Car in bay 1: the straight line enters it (at y 0.65, x 0.57), so round its corner (2.125, 0.65):
+    // √(1.925² + 0.65²) = 2.0318, + √(0.55² + 3.7²) = 3.7407 → 5.7724 → 6.772 m.
+    const empty = reachVerdict(twoBays, 6.5, 'nose-in', { slackMetres: 1, otherBaysOccupied: false })[0]!;
+    const occupied = reachVerdict(twoBays, 6.5, 'nose-in', { slackMetres: 1 })[0]!;
+    expect(empty.requiredMetres).toBeCloseTo(6.005, 3);
+    expect(occupied.requiredMetres).toBeCloseTo(6.772, 3);
+    expect(occupied.path).toContainEqual({ x: 2.125, y: 0.65 });
+    expect([empty.reaches, occupied.reaches]).toEqual([true, false]);
+  });
+
+  it('counts the other bay as occupied unless the customer has one car', () => {
+    const check = (cars: number | null) =>
+      checkCableReach({
+        answers: { charger: { preference: 'tethered', tetherMetres: 6.5, plan: twoBays }, parking: { habit: 'nose-in', cars } },
+        uploads: [],
+        site: {},
+        settings: defaultReadinessSettings,
+        today: '2025-03-03',
+      });
+    expect(check(2).light).toBe('amber');
+    expect(check(null).light).toBe('amber');
+    expect(check(1).light).toBe('green');
+    expect(check(2).figures.otherBaysOccupied).toBe(true);
   });
 });

@@ -13,7 +13,7 @@ function accepted(kinds: UploadKind[]): UploadSummary[] {
 }
 
 function documents(answers: ChecklistAnswers, uploads: UploadSummary[]) {
-  return checkDocuments({ answers, uploads, settings: defaultReadinessSettings, today: '2025-03-03' });
+  return checkDocuments({ answers, uploads, site: {}, settings: defaultReadinessSettings, today: '2025-03-03' });
 }
 
 describe('required uploads follow the answers', () => {

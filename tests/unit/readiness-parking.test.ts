@@ -7,7 +7,7 @@ import type { ParkingKind, UploadSummary } from '../../src/lib/readiness';
 // needs evidence (common practice, no published source; funding schemes set their own rules).
 
 function parking(kind: ParkingKind | null, uploads: UploadSummary[] = []) {
-  return checkParking({ answers: { parking: { kind } }, uploads, settings: defaultReadinessSettings, today: '2025-03-03' });
+  return checkParking({ answers: { parking: { kind } }, uploads, site: {}, settings: defaultReadinessSettings, today: '2025-03-03' });
 }
 
 describe('parking eligibility and evidence', () => {

@@ -4,11 +4,26 @@ import { defaultReadinessSettings } from '../../src/lib/readiness/settings';
 
 // MPAN core check digit (MRA/Elexon definition as described in the Wikipedia article "Meter
 // Point Administration Number"): first 12 digits × 3, 5, 7, 13, 17, 19, 23, 29, 31, 37, 41, 43;
-// sum mod 11 mod 10. Distributor IDs 10–23 are regions; 24 and above "independent network".
+// sum mod 11 mod 10. Distributor IDs 10–23 are regions; the independent-network IDs the market
+// operator lists (24–37 here, from memory) show as "independent network"; any other ID from 24
+// up is unlisted: amber for the office to confirm.
 
 function identity(mpanCore: string | null) {
-  return checkSupplyIdentity({ answers: { supply: { mpanCore } }, uploads: [], settings: defaultReadinessSettings, today: '2025-03-03' });
+  return checkSupplyIdentity({ answers: { supply: { mpanCore } }, uploads: [], site: {}, settings: defaultReadinessSettings, today: '2025-03-03' });
 }
+
+describe('unlisted distributor IDs', () => {
+  it('9912345678906 adds up (1403 mod 11 = 6) but 99 is not a listed ID → amber, no region', () => {
+    const result = identity('9912345678906');
+    expect(result.light).toBe('amber');
+    expect(result.figures).toMatchObject({ valid: true, distributorId: '99', distributorStatus: 'unlisted', region: null });
+    expect(result.customerText).not.toMatch(/distributor/);
+  });
+
+  it('2412345678904 (1357 mod 11 = 4): listed independent network → green', () => {
+    expect(identity('2412345678904')).toMatchObject({ light: 'green', figures: { region: 'independent network' } });
+  });
+});
 
 describe('supply-identity', () => {
   it.each([

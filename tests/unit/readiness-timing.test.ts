@@ -1,21 +1,23 @@
 import { describe, expect, it } from 'vitest';
-import { checkTiming, leadTime, timingLight } from '../../src/lib/readiness/checks/timing';
+import { checkTiming, leadTime, timingLight, timingLightWithUnknowns } from '../../src/lib/readiness/checks/timing';
 import { addDays, isoDayNumber } from '../../src/lib/readiness/dates';
 import { defaultReadinessSettings, resolveReadinessSettings } from '../../src/lib/readiness/settings';
-import type { LoadAnswers } from '../../src/lib/readiness';
+import type { LoadAnswers, Looped, SupplyAnswers } from '../../src/lib/readiness';
 
 // Lead times are settings (common practice, no published source): survey 7 + install 14 = 21
 // calendar days; + 28 when the network operator must be applied to first (ENA "Connecting
 // electric vehicles and heat pumps"). Calendar days: weekends are not skipped. Slack 7 days.
 // today = 2025-03-03 (a Monday).
 const TODAY = '2025-03-03';
-// 100 A, not looped, nothing big declared: 42 A → notify-after, no upgrade lead time.
-const NOTIFY = { mainFuseAmps: 100 as const, looped: 'no' as const, loads: {} as LoadAnswers };
-// 10.5 kW shower: 87.65 A > 60 A → apply-before, + 28 days.
-const APPLY = { ...NOTIFY, loads: { showerKw: 10.5 } };
+// 100 A, not looped, every load answered "none", one socket circuit, a 3.6 kW charger:
+// 32 + 0.66 × 2000 / 230 + 16 = 53.74 A ≤ 60 A (IET OSG Table A2; ENA) → connect and notify.
+const DECLARED: LoadAnswers = { showerKw: 0, cooker: false, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false, socketCircuits: 1 };
+const NOTIFY: SupplyAnswers = { mainFuseAmps: 100, looped: 'no', loads: DECLARED };
+// A looped supply: apply first (known), + 28 days.
+const APPLY: SupplyAnswers = { ...NOTIFY, looped: 'yes' };
 
-function timing(deliveryDate: string | null, supply = NOTIFY, today = TODAY) {
-  return checkTiming({ answers: { vehicle: { deliveryDate }, supply }, uploads: [], settings: defaultReadinessSettings, today });
+function timing(deliveryDate: string | null, supply: SupplyAnswers = NOTIFY, today = TODAY) {
+  return checkTiming({ answers: { vehicle: { deliveryDate }, supply, charger: { ratingKw: 3.6 } }, uploads: [], site: {}, settings: defaultReadinessSettings, today });
 }
 
 describe('calendar days', () => {
@@ -100,6 +102,40 @@ describe('timing with a network-operator application (49 days lead)', () => {
   });
 });
 
+describe('an unknown answer never turns timing red', () => {
+  it.each([
+    // Looped not known, delivery in 30 days (2025-04-02): known lead 21 → 9 spare; with the
+    // possible network step 49 → −19. Red only for what is known: amber.
+    { looped: 'unsure', delivery: '2025-04-02', light: 'amber' },
+    { looped: null, delivery: '2025-04-02', light: 'amber' },
+    // Known looped: the 49 days are certain → red.
+    { looped: 'yes', delivery: '2025-04-02', light: 'red' },
+    // Not looped: 21 days, 9 spare ≥ 7 → green.
+    { looped: 'no', delivery: '2025-04-02', light: 'green' },
+    // Looped unknown but delivery in 20 days: 20 − 21 = −1 even without the network step → red.
+    { looped: 'unsure', delivery: '2025-03-23', light: 'red' },
+  ] as const)('looped $looped, delivery $delivery → $light', ({ looped, delivery, light }) => {
+    const result = timing(delivery, { ...NOTIFY, looped: looped as Looped | null });
+    expect(result.light).toBe(light);
+  });
+
+  it('says in plain words that it may not fit, and why', () => {
+    const result = timing('2025-04-02', { ...NOTIFY, looped: 'unsure' });
+    expect(result.figures).toMatchObject({ spareDays: -19, knownSpareDays: 9, networkLeadKnown: false });
+    expect(result.customerText).toMatch(/may not fit/);
+    expect(result.staffText).toMatch(/Without the possible DNO step: spare 9 days/);
+  });
+
+  it.each([
+    { worst: -19, known: 9, light: 'amber' },
+    { worst: 3, known: 31, light: 'amber' },
+    { worst: 7, known: 35, light: 'green' },
+    { worst: -1, known: -1, light: 'red' },
+  ] as const)('worst $worst, known $known → $light', ({ worst, known, light }) => {
+    expect(timingLightWithUnknowns(worst, known, 7)).toBe(light);
+  });
+});
+
 describe('lead time and light rules', () => {
   it('adds the lead times from settings', () => {
     expect(leadTime(defaultReadinessSettings, false).totalLeadDays).toBe(21);
@@ -121,5 +157,14 @@ describe('lead time and light rules', () => {
 
   it('refuses a malformed today: the caller must pass the date', () => {
     expect(() => timing('2025-04-01', NOTIFY, 'today')).toThrow(RangeError);
+  });
+});
+
+describe('nothing answered but the delivery date', () => {
+  it('an unknown looped supply, loads and rating, delivery in 30 days: amber, not red', () => {
+    // The least demand is one 32 A socket circuit + 5.74 A lighting + a 16 A (3.6 kW) charger =
+    // 53.74 A ≤ 60 A (OSG Table A2; ENA), so the network step is only possible: 30 − 21 = 9 ≥ 0 → amber.
+    const result = checkTiming({ answers: { vehicle: { deliveryDate: '2025-04-02' }, supply: { mainFuseAmps: 100, looped: 'unsure', loads: {} } }, uploads: [], site: {}, settings: defaultReadinessSettings, today: TODAY });
+    expect(result.light).toBe('amber');
   });
 });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   INDEPENDENT_NETWORK,
+  UNLISTED_DISTRIBUTOR,
   checkMpanCore,
   mpanCheckDigit,
   mpanRegions,
@@ -36,12 +37,13 @@ describe('mpanCheckDigit', () => {
 });
 
 describe('checkMpanCore', () => {
-  it('accepts the worked example 1312345678907 (Wikipedia, sum 1349 → 7)', () => {
+  it('accepts the worked example 1312345678907 (the market operator\'s rule: sum 1349 → 7)', () => {
     expect(checkMpanCore('1312345678907')).toEqual({
       ok: true,
       core: '1312345678907',
       distributorId: '13',
       region: 'Merseyside, Cheshire and North Wales',
+      distributorStatus: 'region',
     });
   });
 
@@ -98,7 +100,7 @@ describe('checkMpanCore', () => {
     // 2312345678900 by hand: 2×3 + 3×5 + 1×7 + 2×13 + 3×17 + 4×19 + 5×23 + 6×29 + 7×31 + 8×37
     // + 9×41 + 0×43 = 6 + 15 + 7 + 26 + 51 + 76 + 115 + 174 + 217 + 296 + 369 = 1352;
     // 1352 − 1342 = 10, so the check digit is 0.
-    expect(checkMpanCore('2312345678900')).toEqual({ ok: true, core: '2312345678900', distributorId: '23', region: 'Yorkshire' });
+    expect(checkMpanCore('2312345678900')).toEqual({ ok: true, core: '2312345678900', distributorId: '23', region: 'Yorkshire', distributorStatus: 'region' });
   });
 
   it('shows Eastern England for distributor 10', () => {
@@ -107,11 +109,19 @@ describe('checkMpanCore', () => {
     expect(checkMpanCore('1012345678903')).toMatchObject({ ok: true, region: 'Eastern England' });
   });
 
-  it('shows "independent network" for distributor 24 and above', () => {
+  it('shows "independent network" for a listed independent-network ID (24–37, from memory)', () => {
     // 2412345678904 by hand: 2×3 + 4×5 = 26 in place of 6 + 15 = 21 in the Yorkshire sum, so
     // 1352 + 5 = 1357; 1357 − 1353 (11 × 123) = 4.
-    expect(checkMpanCore('2412345678904')).toMatchObject({ ok: true, distributorId: '24', region: INDEPENDENT_NETWORK });
-    expect(regionForDistributor('99')).toBe('independent network');
+    expect(checkMpanCore('2412345678904')).toMatchObject({ ok: true, distributorId: '24', region: INDEPENDENT_NETWORK, distributorStatus: 'independent' });
+    expect(regionForDistributor('37')).toBe(INDEPENDENT_NETWORK);
+  });
+
+  it('accepts an unlisted ID from 24 up when the check digit adds up, but marks it unlisted', () => {
+    // 9912345678906: 9×3 + 9×5 = 72 in place of 21 → 1352 − 21 + 72 = 1403; 1403 − 1397 (11 × 127) = 6.
+    expect(checkMpanCore('9912345678906')).toMatchObject({ ok: true, distributorId: '99', distributorStatus: 'unlisted', region: UNLISTED_DISTRIBUTOR });
+    // 3812345678905: 3×3 + 8×5 = 49 → 1352 − 21 + 49 = 1380; 1380 − 1375 (11 × 125) = 5.
+    expect(checkMpanCore('3812345678905')).toMatchObject({ ok: true, distributorStatus: 'unlisted' });
+    expect(regionForDistributor('99')).toBe(UNLISTED_DISTRIBUTOR);
   });
 });
 

@@ -41,9 +41,35 @@ describe('current format (INF104, since September 2001)', () => {
     expect(checkRegistration('AB76 CDE', new Date('2026-08-31T12:00:00Z'))).toMatchObject({ warning: expect.any(String) });
   });
 
-  it('warns on I or Q in a current-format mark (from memory, not in the trade reference)', () => {
-    expect(checkRegistration('AB12 CDI', TODAY)).toMatchObject({ ok: true, format: 'current', warning: expect.stringMatching(/I or Q/) });
-    expect(checkRegistration('QB12 CDE', TODAY)).toMatchObject({ ok: true, format: 'current', warning: expect.stringMatching(/I or Q/) });
+  // Letter rules by position, from memory (not in the trade reference): the memory tag (first
+  // two letters) never uses I, Q or Z; the three random letters never use I or Q, but do use Z.
+  it.each([
+    { mark: 'AB12 CDI', warns: /last three letters .* never include I/ },
+    { mark: 'AB12 QDE', warns: /last three letters .* never include Q/ },
+    { mark: 'QB12 CDE', warns: /first two letters .* never include Q/ },
+    { mark: 'AZ12 CDE', warns: /first two letters .* never include Z/ },
+    { mark: 'IB12 CDE', warns: /first two letters .* never include I/ },
+  ])('warns on $mark (from memory)', ({ mark, warns }) => {
+    expect(checkRegistration(mark, TODAY)).toMatchObject({ ok: true, format: 'current', warning: expect.stringMatching(warns) });
+  });
+
+  it('does not warn on Z among the random letters (from memory: it is used there)', () => {
+    expect(checkRegistration('AB12 CDZ', TODAY)).toEqual({ ok: true, registration: 'AB12 CDZ', format: 'current' });
+  });
+
+  it.each([
+    // Year letters skipped I, O, U and Z (and Q for suffixes) — from memory. A prefix Q marks a
+    // vehicle of unknown age, so it is not warned.
+    { mark: 'ABC 123I', format: 'suffix', warns: true },
+    { mark: 'ABC 123Q', format: 'suffix', warns: true },
+    { mark: 'ABC 123A', format: 'suffix', warns: false },
+    { mark: 'U123 ABC', format: 'prefix', warns: true },
+    { mark: 'Z123 ABC', format: 'prefix', warns: true },
+    { mark: 'Q123 ABC', format: 'prefix', warns: false },
+  ])('year letter in $mark: warns $warns (from memory)', ({ mark, format, warns }) => {
+    const result = checkRegistration(mark, TODAY);
+    expect(result).toMatchObject({ ok: true, format });
+    expect(result.ok && Boolean(result.warning)).toBe(warns);
   });
 });
 

@@ -3,7 +3,8 @@
 import type { SectionId } from '../../lib/schemas/checklist';
 
 /** How a field is typed in the form; decides the conversion to and from the API value. */
-export type FieldKind = 'text' | 'phone' | 'choice' | 'number' | 'integer' | 'yesno' | 'fuse';
+/** 'numchoice' is a choice saved as a number, except a 'unsure' option, saved as the word. */
+export type FieldKind = 'text' | 'phone' | 'choice' | 'numchoice' | 'number' | 'integer' | 'yesno' | 'fuse';
 
 export type Option = { value: string; label: string; hint?: string; /** Spans the whole row of a grid. */ wide?: boolean };
 
@@ -122,6 +123,23 @@ export const fieldDefs: FieldDef[] = [
       { value: 'unknown', label: 'I don’t know', hint: 'A perfectly good answer. Your electrician will check this at the survey.' },
     ],
   },
+  {
+    path: 'supply.phases', section: 'supply', kind: 'choice', label: 'Is your supply single phase or three phase?',
+    blocks: 'knowing which chargers your supply can take',
+    options: [
+      { value: 'single', label: 'Single phase', hint: 'Most homes. One main fuse in the cut-out, and the meter shows a single reading.' },
+      { value: 'three', label: 'Three phase', hint: 'Three main fuses side by side in the cut-out (or one wide one marked 3-phase), and often “3 ph” or “400 V” on the meter.' },
+      { value: 'unsure', label: 'I’m not sure', hint: 'A fine answer: your photos of the meter and cut-out usually show it.' },
+    ],
+  },
+  {
+    path: 'supply.loads.socketCircuits', section: 'supply', kind: 'numchoice', label: 'How many socket circuits does your fuse box have?',
+    blocks: demand,
+    options: [
+      ...['1', '2', '3', '4', '5', '6', '7', '8'].map((value) => ({ value, label: value })),
+      { value: 'unsure', label: 'I’m not sure', hint: 'That’s fine: we’ll assume a typical number and your installer will count them.', wide: true },
+    ],
+  },
   { path: 'supply.loads.showerKw', section: 'supply', kind: 'number', unit: 'kW', label: 'Electric shower rating', blocks: demand },
   { path: 'supply.loads.cooker', section: 'supply', kind: 'yesno', label: 'An electric cooker, oven or hob?', blocks: demand, options: YES_NO },
   { path: 'supply.loads.immersion', section: 'supply', kind: 'yesno', label: 'An immersion heater for hot water?', blocks: demand, options: YES_NO },
@@ -174,6 +192,16 @@ export const fieldDefs: FieldDef[] = [
     ],
   },
   { path: 'charger.tetherMetres', section: 'charger', kind: 'number', unit: 'm', label: 'Length of the attached cable', blocks: reach },
+  {
+    path: 'charger.ratingKw', section: 'charger', kind: 'numchoice', label: 'How powerful a charger would you like?',
+    blocks: 'choosing the cable size and checking your supply has room',
+    options: [
+      { value: '3.6', label: '3.6 kW', hint: 'Slower, about 15 miles of range an hour. Suits a small supply.' },
+      { value: '7.4', label: '7.4 kW', hint: 'The usual home charger, about 25 to 30 miles an hour. Single phase.' },
+      { value: '11', label: '11 kW', hint: 'Needs a three-phase supply, and a car that can take it.' },
+      { value: '22', label: '22 kW', hint: 'Needs a three-phase supply; few cars charge this fast at home.' },
+    ],
+  },
 ];
 
 /** Field definitions by dotted path. @example fieldByPath['supply.mpanCore'].label // 'MPAN core (13 digits)' */

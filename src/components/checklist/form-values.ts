@@ -69,6 +69,9 @@ export function toApiValue(def: FieldDef, raw: string): ApiValue {
       return { send: true, value: value === 'unreadable' ? null : Number(value) };
     case 'choice':
       return value === '' ? { send: false } : { send: true, value };
+    case 'numchoice':
+      if (value === '') return { send: false };
+      return { send: true, value: value === 'unsure' ? value : Number(value) };
   }
 }
 

@@ -96,7 +96,7 @@ export function displayValue(def: FieldDef, checklist: Checklist): string | null
   if (value === undefined || value === null || value === '') return null;
   if (def.kind === 'yesno') return value === true ? 'Yes' : 'No';
   if (def.kind === 'fuse') return `${value} A`;
-  if (def.kind === 'choice') return optionLabel(def, String(value));
+  if (def.kind === 'choice' || def.kind === 'numchoice') return optionLabel(def, String(value));
   if ((def.kind === 'number' || def.kind === 'integer') && def.unit) return `${value} ${def.unit}`;
   if (def.kind === 'phone') {
     const phone = checkUkPhone(String(value));

@@ -43,6 +43,11 @@ export function ChargerStep({ caseId }: { caseId: string }) {
       {preference === 'tethered' && (
         <NumberField path="charger.tetherMetres" placeholder="e.g. 5" help="Most attached cables are about 5 m. Longer ones, such as 7.5 m or 10 m, are available." />
       )}
+      <ChoiceField
+        path="charger.ratingKw"
+        columns={2}
+        help="A 7.4 kW charger suits most homes and cars. If you’re not sure, choose 7.4 kW; your installer will confirm."
+      />
       <div className="rounded-lg border border-ground-200 bg-ground-50 p-4" data-testid="plan-link">
         <p className="font-bold text-ground-900">Will the cable reach the car?</p>
         <p className="mt-1 text-ground-800">

@@ -1,6 +1,6 @@
 // Step 3, Your supply: the MPAN, the main fuse, earthing and the big loads already in the home.
 import { StepEvidence } from './step-evidence';
-import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore } from '../../lib/validation/mpan';
+import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore, UNLISTED_DISTRIBUTOR } from '../../lib/validation/mpan';
 import { CheckIcon } from '../icons';
 import { useChecklist } from './checklist-context';
 import { ChoiceField, NumberField, TextField, useFieldValue } from './fields';
@@ -8,9 +8,9 @@ import { Caution, MoreHelp } from './notes';
 
 /** The region line shown once an MPAN core passes its check digit. */
 export function regionLine(region: string): string {
-  return region === INDEPENDENT_NETWORK
-    ? 'Distribution network: an independent network operator'
-    : `Distribution region: ${region}`;
+  if (region === INDEPENDENT_NETWORK) return 'Distribution network: an independent network operator';
+  if (region === UNLISTED_DISTRIBUTOR) return 'The number adds up; we’ll check which network it belongs to';
+  return `Distribution region: ${region}`;
 }
 
 function MpanField() {
@@ -114,6 +114,19 @@ export function SupplyStep({ caseId }: { caseId: string }) {
         </MoreHelp>
       </ChoiceField>
 
+      <ChoiceField
+        path="supply.phases"
+        help="Most homes have a single-phase supply. Chargers above 7.4 kW need three phases, so it helps to know."
+      >
+        <MoreHelp summary="How can I tell from the meter and the cut-out?">
+          <p>
+            Look, without touching, at the cut-out: one fuse holder means single phase; three fuse holders side by side (or a wide unit marked
+            “3-phase”) mean three phase. The meter may say “3 ph”, “3 × 230/400 V” or show three readings.
+          </p>
+          <p>Your photos of the meter and cut-out below usually let your installer tell, so “I’m not sure” is fine.</p>
+        </MoreHelp>
+      </ChoiceField>
+
       <fieldset className="space-y-5 rounded-lg border border-ground-100 p-4">
         <legend className="float-left w-full text-lg font-bold text-ground-900">Big electrical loads already in your home</legend>
         <p className="field-help clear-both !mt-1 pt-1">
@@ -127,6 +140,11 @@ export function SupplyStep({ caseId }: { caseId: string }) {
         <NumberField path="supply.loads.storageHeaters" placeholder="e.g. 6" help="All storage heaters added together, for example three of 2 kW make 6." />
         <ChoiceField path="supply.loads.otherEvCharger" columns={2} />
         <ChoiceField path="supply.loads.solarPv" columns={2} />
+        <ChoiceField
+          path="supply.loads.socketCircuits"
+          columns={3}
+          help="Look at the labels beside the switches in your fuse box (consumer unit), or in your photo of it: count the ones marked sockets, ring or power. Don’t open anything."
+        />
       </fieldset>
       <StepEvidence caseId={caseId} kinds={['meter_photo', 'cutout_photo', 'consumer_unit_photo']} heading="Photos of your supply (photos only — never open anything)" />
     </div>

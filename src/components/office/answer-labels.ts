@@ -25,6 +25,8 @@ const staffLabels: Record<string, string> = {
   'supply.looped': 'Looped supply',
   'supply.consumerUnitLocation': 'Consumer unit location',
   'supply.earthing': 'Earthing arrangement',
+  'supply.phases': 'Supply phases',
+  'supply.loads.socketCircuits': 'Socket circuits',
   'supply.loads.showerKw': 'Electric shower',
   'supply.loads.cooker': 'Electric cooker',
   'supply.loads.immersion': 'Immersion heater',
@@ -42,6 +44,7 @@ const staffLabels: Record<string, string> = {
   'charger.softGroundMetres': 'Soft ground distance',
   'charger.preference': 'Tethered or socketed',
   'charger.tetherMetres': 'Tethered cable length',
+  'charger.ratingKw': 'Charge point rating',
   'charger.plan': 'Driveway plan',
 };
 

@@ -71,6 +71,16 @@ export function describeAudit(item: AuditItem, uploadKindById: Record<string, Up
       return { text: `removed ${kindWord(uploadKind)}`, details: [] };
     case 'note.added':
       return { text: 'added a note', details: [] };
+    case 'site_measures.recorded': {
+      const words: Record<string, string> = {
+        measuredMaxDemandAmps: 'Measured maximum demand (A)',
+        earthingMeasure: '722.411.4.1 measure',
+        electrodeOhms: 'Electrode RA (Ω)',
+        rcdIdnMilliamps: 'RCD IΔn (mA)',
+      };
+      const keys = [...new Set([...Object.keys(before), ...Object.keys(after)])].filter((k) => JSON.stringify(before[k]) !== JSON.stringify(after[k]));
+      return { text: 'recorded site measures', details: keys.map((k) => `${words[k] ?? k}: ${valueWords(before[k])} to ${valueWords(after[k])}`) };
+    }
     case 'case.chased':
     case 'case.reminded': {
       const items = Array.isArray(after.items) ? (after.items as string[]) : [];

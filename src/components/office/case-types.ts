@@ -1,4 +1,5 @@
 // The client's copies of the case API's shapes (the server's types live in server-only files).
+import type { SiteMeasures } from '../../lib/readiness/types';
 import type { Checklist, SectionProgress } from '../../lib/schemas/checklist';
 import type { CheckResult, Light } from '../../lib/readiness/types';
 import type { StageId } from '../../lib/stages';
@@ -15,6 +16,8 @@ export type OfficeCaseView = {
   region: string | null;
   address: { addressLine1: string | null; addressLine2: string | null; town: string | null; postcode: string | null };
   readiness: { light: Light; gapCount: number; checks: CheckResult[]; at: string | null };
+  /** What the office or surveyor recorded: measured maximum demand, earthing measure, RA, IΔn. */
+  siteMeasures?: SiteMeasures;
   surveyDate: string | null;
   submittedAt: string | null;
   updatedAt: string;

@@ -10,6 +10,7 @@ import type { CasePeople, OfficeCaseView, Readiness, StaffMember, VehicleLookupI
 import { formatDay, formatDayTime, plural } from './format';
 import { LightBadge } from '../readiness/light-badge';
 import { ReadinessPanel } from './readiness-panel';
+import { SiteMeasuresForm } from './site-measures-form';
 import { StageActions } from './stage-actions';
 import { StagePill } from './stage-pill';
 import { UploadReview } from './upload-review';
@@ -169,6 +170,7 @@ export default function CaseWorkspace({ initial, people, surveyors, vehicleLooku
           <CaseAnswers checklist={view.checklist} progress={view.progress} warnings={view.warnings} vehicleLookup={vehicleLookup} />
         </div>
         <div className="min-w-0 space-y-4">
+          <SiteMeasuresForm caseId={caseId} initial={view.siteMeasures ?? {}} onSaved={(siteMeasures) => { setView((v) => ({ ...v, siteMeasures })); refresh(); }} />
           <NotesPanel caseId={caseId} refreshKey={refreshKey} onAdded={refresh} />
           <MessagesPanel caseId={caseId} refreshKey={refreshKey} />
           <AuditPanel caseId={caseId} refreshKey={refreshKey} uploadKindById={uploadKinds} staffNames={staffNames} />

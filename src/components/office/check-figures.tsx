@@ -54,80 +54,155 @@ function PassWord({ ok, yes = 'Passes', no = 'Fails' }: { ok: boolean; yes?: str
   );
 }
 
-type DemandItem = { load: string; declared: string; allowanceAmps: number; rule: string };
+type DemandItem = { load: string; declared: string; allowanceAmps: number; rule: string; phase?: number };
+
+function Assumptions({ list }: { list: unknown }) {
+  const items = (Array.isArray(list) ? list : []).filter((x): x is string => typeof x === 'string');
+  if (items.length === 0) return null;
+  return (
+    <div className="mt-2 text-sm" data-testid="figure-assumptions">
+      <p className="font-semibold text-ground-800">Assumed</p>
+      <ul className="list-disc pl-5 text-ground-800">{items.map((a) => <li key={a}>{a}</li>)}</ul>
+    </div>
+  );
+}
 
 function SupplyHeadroom({ f }: { f: Figures }) {
   const items = (Array.isArray(f.items) ? f.items : []) as DemandItem[];
   const byRating = f.headroomByRating && typeof f.headroomByRating === 'object' ? (f.headroomByRating as Record<string, number>) : null;
+  const phases = Array.isArray(f.phaseDemandAmps) ? (f.phaseDemandAmps as number[]) : null;
+  const measured = f.basis === 'measured';
   return (
     <>
       <FigureList
         rows={[
-          ['Existing demand after diversity', amps(f.existingDemandAmps)],
-          ['Charger, no diversity', amps(f.chargerAmps)],
-          ['Assessed maximum demand', amps(f.assessedDemandAmps)],
+          ['Basis', measured ? 'Measured maximum demand (smart meter or logger)' : 'Estimated, IET OSG Table A2'],
+          [measured ? 'Existing demand, measured' : 'Existing demand after diversity', amps(f.existingDemandAmps)],
+          ['New charge point', `${num(f.chargerKw) === null ? '—' : `${formatNumber(num(f.chargerKw)!)} kW`}, ${amps(f.chargerAmps)}${f.chargerPhases === 3 ? ' per phase' : ''}${f.chargerChosen === false ? ' (assumed)' : ''}`],
+          ['Supply', f.supplyPhases === 3 ? 'Three phase (per-phase figures)' : 'Single phase'],
+          ['Assessed maximum demand', `${amps(f.assessedDemandAmps)}${f.supplyPhases === 3 ? ' (busiest phase)' : ''}`],
+          ['At least', f.firm ? '—' : amps(f.lowerBoundDemandAmps)],
           ['Main fuse (cut-out)', f.fuseAmps === null ? 'Not known' : amps(f.fuseAmps)],
-          ['Headroom', f.headroomAmps === null ? '—' : amps(f.headroomAmps)],
+          ['Headroom', f.headroomAmps === null || f.headroomAmps === undefined ? '—' : amps(f.headroomAmps)],
           ['Comfortable margin', amps(f.marginAmps)],
-          ['Loads declared', f.loadsDeclared ? 'Yes' : 'No — assumed none'],
+          ['Loads declared', f.loadsDeclared ? 'Every question answered' : 'Not all — unanswered count as none'],
+          ['Estimate firm', f.firm ? 'Yes' : 'No — amber at best'],
+          ...(f.phaseFit && f.phaseFit !== 'fits' ? [['Phases for the charger', f.phaseFit === 'needs-three-phase' ? 'Needs three phase; supply is single' : 'Needs three phase; supply not known'] as [string, ReactNode]] : []),
         ]}
       />
+      {phases && (
+        <MiniTable caption="Demand per phase, with the charger" head={['Phase', 'Demand']} rows={phases.map((a, i) => [`L${i + 1}`, amps(a)])} />
+      )}
       {byRating && (
         <MiniTable caption="Headroom at each cut-out rating" head={['Cut-out rating', 'Headroom']} rows={Object.entries(byRating).map(([r, h]) => [`${r} A`, <span className={h < 0 ? 'text-blocked' : ''}>{amps(h)}</span>])} />
       )}
       {items.length > 0 && (
         <MiniTable
           caption="Maximum demand working"
-          head={['Load', 'Declared', 'Allowance', 'Rule']}
-          rows={items.map((i) => [i.load, i.declared, amps(i.allowanceAmps), <span className="text-xs text-ground-700">{i.rule}</span>])}
+          head={phases ? ['Load', 'Declared', 'Allowance', 'Phase', 'Rule'] : ['Load', 'Declared', 'Allowance', 'Rule']}
+          rows={items.map((i) => [
+            i.load,
+            i.declared,
+            amps(i.allowanceAmps),
+            ...(phases ? [i.phase ? `L${i.phase}` : i.load === 'New charge point' ? 'All / busiest' : '—'] : []),
+            <span className="text-xs text-ground-700">{i.rule}</span>,
+          ])}
         />
       )}
+      <Assumptions list={f.assumptions} />
     </>
   );
 }
 
-type SizeRow = { csaMm2: number; mvPerAPerM: number; volts: number; percent: number; capacityAmps?: number; passes?: boolean; passesDrop?: boolean; passesCapacity?: boolean };
+type SizeRow = { csaMm2: number; mvPerAPerM: number; volts: number; percent: number; tabulatedAmps?: number; capacityAmps?: number; passes?: boolean; passesDrop?: boolean; passesCapacity?: boolean };
+type Factor = { name: string; value: number; basis: string };
 
 function CableRun({ f }: { f: Figures }) {
   const sizes = (Array.isArray(f.sizes) ? f.sizes : []) as SizeRow[];
+  const factors = (Array.isArray(f.factors) ? f.factors : []) as Factor[];
   const ref70 = f.reference70C as { table?: string; sizes?: SizeRow[] } | undefined;
   const limit = num(f.limitPercent);
+  const upstream = num(f.upstreamPercent) ?? 0;
   return (
     <>
       <FigureList
         rows={[
-          ['Design current', amps(f.currentAmps)],
+          ['Design current Ib', `${amps(f.currentAmps)}${f.phases === 3 ? ' per phase' : ''}${f.chargerChosen === false ? ' (rating assumed)' : ''}`],
+          ['Protective device In', amps(f.deviceAmps)],
+          ['Terminal basis', num(f.terminalTemperatureC) === null ? '—' : `${f.terminalTemperatureC} °C`],
+          ['Reference method', typeof f.method === 'string' ? (f.method === 'D' ? 'D (in the ground)' : 'C (clipped direct)') : '—'],
+          ['Correction factor', num(f.factor) === null ? '—' : formatNumber(num(f.factor)!, 2)],
           ['Run length', metres(f.lengthMetres)],
           ['Route', typeof f.route === 'string' ? routeWords[f.route] ?? f.route : 'Not given'],
-          ['Voltage-drop limit', limit === null ? '—' : `${formatNumber(limit)}% (${formatNumber(num(f.limitVolts) ?? 0)} V)`],
+          ['Voltage-drop limit', limit === null ? '—' : `${formatNumber(limit)}% − ${formatNumber(upstream)}% upstream = ${formatNumber(num(f.limitVolts) ?? 0, 2)} V`],
           ['Smallest size that passes', num(f.recommendedCsaMm2) === null ? (sizes.length ? 'None of the sizes' : '—') : `${f.recommendedCsaMm2} mm²`],
           ['Long run over', metres(f.longRunThresholdMetres)],
         ]}
       />
+      {typeof f.routeAssumption === 'string' && <p className="mt-2 text-sm text-ground-800">{f.routeAssumption}.</p>}
+      {factors.length > 0 && (
+        <MiniTable caption="Correction factors applied to the tabulated capacity" head={['Factor', 'Value', 'Basis']} rows={factors.map((x) => [x.name, formatNumber(x.value, 2), <span className="text-xs text-ground-700">{x.basis}</span>])} />
+      )}
       {sizes.length > 0 && (
         <MiniTable
-          caption={typeof f.table === 'string' ? f.table : 'Voltage drop by cable size'}
-          head={['Size', 'mV/A/m', 'Drop', 'Drop %', 'Capacity', 'Result']}
+          caption={typeof f.table === 'string' ? f.table : 'Capacity and voltage drop by cable size'}
+          head={['Size', 'It', 'Iz', 'mV/A/m', 'Drop', 'Drop %', 'Result']}
           highlight={sizes.findIndex((s) => s.csaMm2 === f.recommendedCsaMm2)}
           rows={sizes.map((s) => [
             `${s.csaMm2} mm²`,
-            formatNumber(s.mvPerAPerM),
-            `${formatNumber(s.volts)} V`,
-            `${formatNumber(s.percent)}%`,
-            s.capacityAmps === undefined ? '—' : `${s.capacityAmps} A`,
-            <PassWord ok={Boolean(s.passes)} no={s.passesDrop === false ? 'Drop too high' : 'Too small'} />,
+            s.tabulatedAmps === undefined ? '—' : `${s.tabulatedAmps} A`,
+            s.capacityAmps === undefined ? '—' : `${formatNumber(s.capacityAmps)} A`,
+            formatNumber(s.mvPerAPerM, 2),
+            `${formatNumber(s.volts, 2)} V`,
+            `${formatNumber(s.percent, 2)}%`,
+            <PassWord ok={Boolean(s.passes)} no={s.passesCapacity === false ? 'Iz below In' : 'Drop too high'} />,
           ])}
         />
       )}
       {ref70?.sizes && ref70.sizes.length > 0 && (
         <details className="mt-2 text-sm">
-          <summary className="cursor-pointer text-ground-700">70 °C thermoplastic comparison (from memory, not used to recommend)</summary>
+          <summary className="cursor-pointer text-ground-700">70 °C thermoplastic drop comparison (from memory, not used to recommend)</summary>
           <MiniTable
             caption={ref70.table ?? 'Table 4D4B'}
             head={['Size', 'mV/A/m', 'Drop', 'Drop %']}
             rows={ref70.sizes.map((s) => [`${s.csaMm2} mm²`, formatNumber(s.mvPerAPerM), `${formatNumber(s.volts)} V`, `${formatNumber(s.percent)}%`])}
           />
         </details>
+      )}
+    </>
+  );
+}
+
+type ElectrodeTest = { raOhms: number | null; idnMilliamps: number | null; touchVolts: number | null; passes: boolean | null; possiblyUnstable: boolean | null };
+const earthingWords: Record<string, string> = { pme: 'PME (TN-C-S)', tns: 'TN-S', tt: 'TT', unknown: 'Not known' };
+const groundWords: Record<string, string> = { near: 'Near: an electrode is practical', far: 'Far', 'distance-unknown': 'Distance not given', none: 'None', unknown: 'Not answered' };
+
+function Earthing({ f }: { f: Figures }) {
+  const test = f.electrodeTest as ElectrodeTest | null | undefined;
+  return (
+    <>
+      <FigureList
+        rows={[
+          ['Earthing arrangement', earthingWords[String(f.earthing)] ?? String(f.earthing ?? '—')],
+          ['722.411.4.1 measure needed', f.measureNeeded ? 'Yes' : 'No'],
+          ['Measure recorded', typeof f.earthingMeasureLabel === 'string' ? f.earthingMeasureLabel : f.measureNeeded ? 'Not yet — amber until recorded' : '—'],
+          ['Used outdoors', f.outdoorUse === 'possibly' ? 'Possibly (garage)' : 'Yes'],
+          ['Soft ground', groundWords[String(f.electrodeGround)] ?? '—'],
+          ['Soft ground distance', metres(f.softGroundMetres)],
+        ]}
+      />
+      {test && (
+        <MiniTable
+          caption="Earth electrode: RA × IΔn ≤ 50 V (BS 7671 411.5.3)"
+          head={['RA', 'IΔn', 'RA × IΔn', 'Result', 'Stability (above 200 Ω)']}
+          rows={[[
+            test.raOhms === null ? 'Not recorded' : `${formatNumber(test.raOhms)} Ω`,
+            test.idnMilliamps === null ? 'Not recorded' : `${formatNumber(test.idnMilliamps)} mA`,
+            test.touchVolts === null ? '—' : `${formatNumber(test.touchVolts, 2)} V`,
+            test.passes === null ? 'Not tested' : <PassWord ok={test.passes} yes="≤ 50 V" no="Over 50 V" />,
+            test.possiblyUnstable === null ? '—' : test.possiblyUnstable ? 'May not be stable (common practice)' : 'Fine',
+          ]]}
+        />
       )}
     </>
   );
@@ -141,20 +216,20 @@ const routeWords: Record<string, string> = {
 };
 
 const networkRouteWords: Record<string, string> = {
-  'notify-after': 'Connect, then notify the network operator',
-  'apply-before': 'Apply to the network operator before installing',
+  'notify-after': 'Connect and notify',
+  'apply-before': 'Apply to connect',
 };
 
 function NetworkOperator({ f }: { f: Figures }) {
-  const reasons = (Array.isArray(f.reasons) ? f.reasons : []) as { code: string; text: string }[];
+  const reasons = (Array.isArray(f.reasons) ? f.reasons : []) as { code: string; text: string; certain?: boolean }[];
   return (
     <>
       <FigureList
         rows={[
           ['Route', typeof f.route === 'string' ? networkRouteWords[f.route] ?? f.route : '—'],
           ['Settled', f.settled ? 'Yes' : 'Not yet — answers missing'],
-          ['Assessed maximum demand', amps(f.assessedDemandAmps)],
-          ['Notify-only limit', amps(f.demandLimitAmps)],
+          ['Assessed maximum demand', `${amps(f.assessedDemandAmps)}${f.supplyPhases === 3 ? ' per phase' : ''}`],
+          ['Notify-only limit', `${amps(f.demandLimitAmps)}${f.supplyPhases === 3 ? ' per phase' : ''}`],
           ['Main fuse (cut-out)', f.fuseAmps === null ? 'Not known' : amps(f.fuseAmps)],
           ['Lead time allowed', `${num(f.leadTimeDays) ?? 0} days`],
           ['Notify within', `${num(f.notifyWithinDays) ?? '—'} days of connection`],
@@ -164,7 +239,7 @@ function NetworkOperator({ f }: { f: Figures }) {
       {reasons.length > 0 && (
         <div className="mt-2 text-sm">
           <p className="font-semibold text-ground-800">Why it must apply first</p>
-          <ul className="list-disc pl-5">{reasons.map((r) => <li key={r.code}>{r.text}</li>)}</ul>
+          <ul className="list-disc pl-5">{reasons.map((r) => <li key={r.code}>{r.text}{r.certain === false ? ' (possible — an answer is missing)' : ''}</li>)}</ul>
         </div>
       )}
     </>
@@ -187,6 +262,9 @@ function CableReach({ f }: { f: Figures }) {
           ['Parking habit', typeof f.habit === 'string' ? f.habit.replace('-', ' ') : '—'],
           ['Car size', car?.lengthM ? `${formatNumber(car.lengthM)} × ${formatNumber(car.widthM ?? 0)} m` : '—'],
           ['Slack allowed', metres(f.slackMetres)],
+          ...(f.otherBaysOccupied === true || f.otherBaysOccupied === false
+            ? [['Other bay', f.otherBaysOccupied ? 'Occupied: the car there is an obstacle' : 'Empty (one car)'] as [string, ReactNode]]
+            : []),
         ]}
       />
       {verdicts.length > 0 && (
@@ -235,6 +313,10 @@ const knownLabels: Record<string, string> = {
   valid: 'Check digit valid',
   reason: 'Reason',
   distributorId: 'Distributor ID',
+  distributorStatus: 'Distributor listed',
+  knownLeadDays: 'Known lead',
+  knownSpareDays: 'Spare without the possible network step',
+  networkLeadKnown: 'Network step known',
   region: 'Distribution region',
   earthing: 'Earthing arrangement',
   outdoorUse: 'Used outdoors',
@@ -306,6 +388,8 @@ export function CheckFigures({ check }: { check: CheckResult }) {
       return <NetworkOperator f={f} />;
     case 'cable-reach':
       return <CableReach f={f} />;
+    case 'earthing':
+      return <Earthing f={f} />;
     case 'documents':
       return <Documents f={f} />;
     default:

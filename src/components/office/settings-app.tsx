@@ -20,14 +20,18 @@ const groups: { title: string; intro: string; keys: ReadinessSettingKey[] }[] = 
   {
     title: 'Supply and maximum demand',
     intro: 'How the supply-headroom check assesses maximum demand against the main fuse.',
-    keys: ['nominalVoltage', 'chargerAmps', 'headroomMarginAmps', 'smallFuseAmps', 'baselineAmps', 'cookerKw', 'cookerUnitHasSocket', 'immersionKw', 'otherEvChargerAmps'],
+    keys: ['nominalVoltage', 'chargerAmps', 'headroomMarginAmps', 'smallFuseAmps', 'socketCircuitAmps', 'assumedSocketCircuits', 'lightingKw', 'cookerKw', 'cookerUnitHasSocket', 'immersionKw', 'otherEvChargerAmps'],
   },
   {
     title: 'Network operator and lead times',
     intro: 'When the network operator must be asked first, and how long each step takes before the car arrives.',
     keys: ['enaDemandLimitAmps', 'notifyWithinDays', 'surveyLeadDays', 'installLeadDays', 'supplyUpgradeLeadDays', 'timingSlackDays'],
   },
-  { title: 'Earthing and cable run', intro: 'Soft ground for an electrode, and the voltage-drop limit and long-run flag.', keys: ['nearSoftGroundMetres', 'voltageDropLimitPercent', 'longRunMetres'] },
+  {
+    title: 'Earthing and cable run',
+    intro: 'Soft ground for an electrode; the charge-point circuit’s device, terminal basis and voltage-drop allowance; the long-run flag.',
+    keys: ['nearSoftGroundMetres', 'protectiveDeviceAmps', 'terminalTemperatureC', 'voltageDropLimitPercent', 'upstreamDropPercent', 'longRunMetres'],
+  },
   { title: 'Cable reach', intro: 'Assumptions when measuring the charging cable on the customer’s driveway plan.', keys: ['cableSlackMetres', 'defaultTetherMetres', 'defaultCustomerCableMetres', 'portInsetMetres'] },
 ];
 

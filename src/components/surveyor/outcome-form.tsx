@@ -6,6 +6,8 @@ import {
   confirmedEarthingValues,
   confirmedFuseValues,
   earthingLabels,
+  earthingMeasureOptionLabels,
+  earthingMeasureValues,
   measurementFields,
   measurementIds,
   outcomeLabels,
@@ -39,6 +41,7 @@ export default function OutcomeForm({ caseId, reference, customerEarthing, custo
   const [outcome, setOutcome] = useState<SurveyOutcome | ''>('');
   const [earthing, setEarthing] = useState<string>('');
   const [fuse, setFuse] = useState<string>('');
+  const [measure, setMeasure] = useState<string>('');
   const [readings, setReadings] = useState<Record<MeasurementId, string>>(() => Object.fromEntries(measurementIds.map((id) => [id, ''])) as Record<MeasurementId, string>);
   const [notes, setNotes] = useState('');
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -51,6 +54,7 @@ export default function OutcomeForm({ caseId, reference, customerEarthing, custo
     outcome: outcome || undefined,
     confirmedEarthing: earthing || null,
     confirmedFuseAmps: fuse ? Number(fuse) : null,
+    earthingMeasure: measure || null,
     measurements: Object.fromEntries(measurementIds.filter((id) => readings[id].trim() !== '').map((id) => [id, Number(readings[id].replace(',', '.'))])),
     notes: notes.trim() || undefined,
   });
@@ -155,6 +159,16 @@ export default function OutcomeForm({ caseId, reference, customerEarthing, custo
             <Choice name="confirmedFuseAmps" value="" checked={fuse === ''} onChange={() => { setFuse(''); cleared('confirmedFuseAmps'); }} label="Not confirmed" />
           </div>
         </Fieldset>
+      </div>
+
+      <div>
+        <label htmlFor="outcome-earthing-measure" className="field-label">PME: the BS 7671 722.411.4.1 measure that will be used</label>
+        <select id="outcome-earthing-measure" className="field-input" value={measure} onChange={(e) => { setMeasure(e.target.value); cleared('earthingMeasure'); }}>
+          <option value="">Not chosen yet (the earthing check stays amber on PME)</option>
+          {earthingMeasureValues.map((m) => <option key={m} value={m}>{earthingMeasureOptionLabels[m]}</option>)}
+        </select>
+        <p className="field-help">For a TT electrode, record RA and the RCD’s IΔn below: RA × IΔn must be 50 V or less (411.5.3).</p>
+        {errorText('earthingMeasure')}
       </div>
 
       <fieldset className="rounded-lg border border-ground-200 bg-white p-4">

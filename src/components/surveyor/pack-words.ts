@@ -31,6 +31,8 @@ const staffLabels: Record<string, string> = {
   'supply.looped': 'Looped supply',
   'supply.consumerUnitLocation': 'Consumer unit location',
   'supply.earthing': 'Earthing, as answered',
+  'supply.phases': 'Supply phases, as answered',
+  'supply.loads.socketCircuits': 'Socket circuits (from the consumer unit labels)',
   'supply.loads.showerKw': 'Electric shower',
   'supply.loads.cooker': 'Electric cooker',
   'supply.loads.immersion': 'Immersion heater',
@@ -48,6 +50,7 @@ const staffLabels: Record<string, string> = {
   'charger.softGroundMetres': 'Distance to soft ground',
   'charger.preference': 'Tethered or socketed',
   'charger.tetherMetres': 'Tethered cable length',
+  'charger.ratingKw': 'Charge point rating wanted',
   'charger.plan': 'Driveway plan',
 };
 
@@ -79,6 +82,8 @@ const choiceWords: Record<string, Record<string, string>> = {
   },
   'supply.looped': { yes: 'Yes', no: 'No', unsure: 'Not sure' },
   'supply.earthing': { pme: 'PME (TN-C-S)', tns: 'TN-S', tt: 'TT', unknown: 'Does not know' },
+  'supply.phases': { single: 'Single phase', three: 'Three phase', unsure: 'Not sure' },
+  'supply.loads.socketCircuits': { unsure: 'Not sure' },
   'parking.kind': {
     'attached-drive': 'Driveway attached to the home',
     garage: 'Garage attached to the home',
@@ -104,6 +109,7 @@ const numberWords: Record<string, (n: number) => string> = {
   'charger.cableRunMetres': (n) => `${n} m`,
   'charger.softGroundMetres': (n) => `${n} m`,
   'charger.tetherMetres': (n) => `${n} m`,
+  'charger.ratingKw': (n) => `${n} kW`,
 };
 
 const dateFormat = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
@@ -152,9 +158,43 @@ export const kindTitle = (kind: UploadKind) => uploadKindInfo[kind]?.title ?? ki
 export const uploadStateWords = { accepted: 'Accepted', waiting: 'Waiting for review', rejected: 'Rejected', missing: 'Missing' } as const;
 
 export const networkRouteWords: Record<string, string> = {
-  'notify-after': 'Install, then notify the network operator (within the notice period)',
-  'apply-before': 'Apply to the network operator before connecting',
+  'notify-after': 'Connect and notify: install, then notify the network operator within the notice period',
+  'apply-before': 'Apply to connect: apply to the network operator before connecting',
 };
+
+/**
+ * How the cable was sized, in one line: Ib, In, terminal basis, method and factors.
+ *
+ * @example cableBasisWords({ currentAmps: 32, deviceAmps: 32, terminalTemperatureC: 70, method: 'D', factor: 1, phases: 1, upstreamPercent: 0, limitPercent: 5, limitVolts: 11.5, chargerChosen: true })
+ * // 'Ib 32 A ≤ In 32 A ≤ Iz; 70 °C terminals; method D; factors × 1; single phase; limit 5% − 0% upstream = 11.5 V'
+ */
+export function cableBasisWords(c: { currentAmps: number; deviceAmps: number | null; terminalTemperatureC: number | null; method: string | null; factor: number | null; phases: number; upstreamPercent: number; limitPercent: number; limitVolts: number; chargerChosen: boolean }): string {
+  const assumed = c.chargerChosen ? '' : ' (charger rating assumed)';
+  return `Ib ${fmt(c.currentAmps)} A${assumed} ≤ In ${c.deviceAmps === null ? '—' : `${fmt(c.deviceAmps)} A`} ≤ Iz; ${c.terminalTemperatureC ?? '—'} °C terminals; method ${c.method ?? '—'}; factors × ${c.factor === null ? '—' : fmt(c.factor)}; ${c.phases === 3 ? 'three phase' : 'single phase'}; limit ${fmt(c.limitPercent)}% − ${fmt(c.upstreamPercent)}% upstream = ${fmt(c.limitVolts)} V`;
+}
+
+/**
+ * The demand's basis in words.
+ *
+ * @example demandBasisWords({ basis: 'measured', firm: true, lowerBoundDemandAmps: 73 }) // 'Measured maximum demand (smart meter or logger)'
+ */
+export function demandBasisWords(d: { basis: string; firm: boolean; lowerBoundDemandAmps: number | null }): string {
+  if (d.basis === 'measured') return 'Measured maximum demand (smart meter or logger)';
+  if (d.firm) return 'Estimated by IET On-Site Guide Table A2, every load answered';
+  return `Estimated by Table A2, not firm: at least ${d.lowerBoundDemandAmps === null ? '—' : `${fmt(d.lowerBoundDemandAmps)} A`}`;
+}
+
+/**
+ * The electrode test in words.
+ *
+ * @example electrodeTestWords({ raOhms: 250, idnMilliamps: 30, touchVolts: 7.5, passes: true, possiblyUnstable: true })
+ * // 'RA 250 Ω × IΔn 30 mA = 7.5 V ≤ 50 V (411.5.3); above 200 Ω: may not be stable (common practice)'
+ */
+export function electrodeTestWords(t: { raOhms: number | null; idnMilliamps: number | null; touchVolts: number | null; passes: boolean | null; possiblyUnstable: boolean | null }): string {
+  if (t.touchVolts === null) return `RA ${t.raOhms === null ? 'not recorded' : `${fmt(t.raOhms)} Ω`}, IΔn ${t.idnMilliamps === null ? 'not recorded' : `${fmt(t.idnMilliamps)} mA`}: not tested yet`;
+  const verdict = t.passes ? '≤ 50 V (411.5.3)' : '> 50 V: fails 411.5.3';
+  return `RA ${fmt(t.raOhms ?? 0)} Ω × IΔn ${fmt(t.idnMilliamps ?? 0)} mA = ${fmt(t.touchVolts)} V ${verdict}${t.possiblyUnstable ? '; above 200 Ω: may not be stable (common practice)' : ''}`;
+}
 
 export const cableSourceWords: Record<string, string> = {
   tether: 'tethered cable, as given',

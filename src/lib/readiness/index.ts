@@ -12,16 +12,28 @@ import { checkTiming } from './checks/timing';
 import { isoDayNumber } from './dates';
 import { worstLight } from './lights';
 import { resolveReadinessSettings, type ReadinessSettingsInput } from './settings';
-import type { Check, CheckId, CheckResult, ChecklistAnswers, Light, UploadSummary } from './types';
+import type { Check, CheckId, CheckResult, ChecklistAnswers, Light, SiteMeasures, UploadSummary } from './types';
 
 export * from './types';
 export * from './plan';
 export * from './settings';
 export { worstLight, atLeast } from './lights';
-export { assessMaximumDemand, cookerAllowanceAmps, showerAllowanceAmps, type DemandAssessment, type DemandItem } from './demand';
+export {
+  assessMaximumDemand,
+  cookerAllowanceAmps,
+  lightingAllowanceAmps,
+  loadQuestionKeys,
+  loadsAllAnswered,
+  showerAllowanceAmps,
+  socketAllowanceAmps,
+  type DemandAssessment,
+  type DemandItem,
+} from './demand';
+export { chargerRating, chargerRatings, chargerRatingValues, knownPhases, type ChargerRating, type ChargerRatingKw } from './charger';
 export { decideNetworkRoute, type NetworkRoute, type NetworkReason, type NetworkReasonCode, type NetworkRouteDecision } from './network-route';
-export { TABLE_4E4, TABLE_4D4B_FROM_MEMORY, voltageDropVolts, voltageDropPercent, type CableSize } from './cable-tables';
-export { cableSizeRows, recommendedCsaMm2, type CableSizeRow } from './checks/cable-run';
+export { CABLE_SIZES, cableTableSources, TABLE_4D4B_FROM_MEMORY, voltageDropVolts, voltageDropPercent, type CableSize } from './cable-tables';
+export { cableDesign, cableSizeRows, capacityBasis, recommendedCsaMm2, type CableSizeRow, type CorrectionFactor } from './checks/cable-run';
+export { earthingMeasureLabels, electrodeTest, type ElectrodeTest } from './checks/earthing';
 export { requiredUploadKinds } from './checks/documents';
 export { uploadKindLabels, uploadKindStatus, type UploadKindStatus, type UploadState } from './upload-status';
 export { readinessCautions } from './cautions';
@@ -53,6 +65,8 @@ export const readinessChecks: ReadonlyArray<{ id: CheckId; run: Check }> = Objec
 export interface ReadinessInput {
   answers?: ChecklistAnswers | null;
   uploads?: readonly UploadSummary[] | null;
+  /** What the office or surveyor recorded (measured demand, earthing measure, RA, IΔn). */
+  site?: SiteMeasures | null;
   /** Partial settings are filled in with the defaults. */
   settings?: ReadinessSettingsInput | null;
   /** Today's date, YYYY-MM-DD. */
@@ -77,6 +91,7 @@ export function runChecks(input: ReadinessInput): ReadinessResult {
   const checkInput = {
     answers: input.answers ?? {},
     uploads: input.uploads ?? [],
+    site: input.site ?? {},
     settings: resolveReadinessSettings(input.settings),
     today: input.today,
   };

@@ -230,10 +230,11 @@ export interface CablePath {
 export function cablePath(
   chargePoint: Point,
   port: Point,
-  options: { slackMetres?: number; around?: Rect | null } = {},
+  options: { slackMetres?: number; around?: Rect | null; obstacles?: readonly Rect[] } = {},
 ): CablePath {
   const slackMetres = options.slackMetres ?? defaultReadinessSettings.cableSlackMetres;
-  const points = options.around ? shortestPathAround(chargePoint, port, options.around) : [chargePoint, port];
+  const obstacles = [...(options.around ? [options.around] : []), ...(options.obstacles ?? [])];
+  const points = obstacles.length > 0 ? shortestPathAround(chargePoint, port, obstacles) : [chargePoint, port];
   const planMetres = pathLength(points);
   return { points, planMetres: roundTo(planMetres, 3), slackMetres, requiredMetres: roundTo(planMetres + slackMetres, 3) };
 }
@@ -254,6 +255,11 @@ export interface ReachOptions {
   port?: ChargePort | null;
   slackMetres?: number;
   portInsetMetres?: number;
+  /**
+   * Whether the other bays hold a car (of the same size, assumed) when the electric car is
+   * parked: each occupied bay is an obstacle the cable must go round. Default true.
+   */
+  otherBaysOccupied?: boolean;
 }
 
 /**
@@ -271,12 +277,15 @@ export function reachVerdict(
   const port = options.port ?? plan.chargePort ?? null;
   if (!port) return [];
   const inset = options.portInsetMetres ?? defaultReadinessSettings.portInsetMetres;
+  const othersOccupied = options.otherBaysOccupied ?? true;
   return evBays(plan).flatMap(({ bay, index }) =>
     parkingWays(habit).map((way) => {
       const position = portPosition(plan, bay, way, port, inset) as Point;
+      const others = othersOccupied ? plan.bays.filter((_, i) => i !== index).map((other) => carFootprint(plan, other)) : [];
       const path = cablePath(plan.chargePoint, position, {
         slackMetres: options.slackMetres,
         around: carFootprint(plan, bay),
+        obstacles: others,
       });
       const reaches = path.requiredMetres <= cableMetres;
       return {
@@ -377,17 +386,19 @@ function segmentCrossesInside(a: Point, b: Point, r: Rect): boolean {
   return strictlyInside({ x: a.x + mid * dx, y: a.y + mid * dy }, r);
 }
 
-// Shortest path round a rectangle: a tiny visibility graph over its four corners.
-function shortestPathAround(from: Point, to: Point, r: Rect): Point[] {
-  if (strictlyInside(from, r) || !segmentCrossesInside(from, to, r)) return [from, to];
-  const nodes: Point[] = [
-    from,
-    to,
+// Shortest path round the parked cars: a small visibility graph over every car's corners.
+function shortestPathAround(from: Point, to: Point, rects: readonly Rect[]): Point[] {
+  // Only the cars the end points are not inside can block: a port sits on its own car's body.
+  const blocking = rects.filter((r) => !strictlyInside(from, r));
+  const blocked = (a: Point, b: Point) => blocking.some((r) => segmentCrossesInside(a, b, r));
+  if (!blocked(from, to)) return [from, to];
+  const corners = blocking.flatMap((r) => [
     { x: r.minX, y: r.minY },
     { x: r.maxX, y: r.minY },
     { x: r.maxX, y: r.maxY },
     { x: r.minX, y: r.maxY },
-  ];
+  ]);
+  const nodes: Point[] = [from, to, ...corners.filter((c) => !blocking.some((r) => strictlyInside(c, r)))];
   const best = nodes.map(() => Infinity);
   const previous = nodes.map(() => -1);
   const done = nodes.map(() => false);
@@ -397,7 +408,7 @@ function shortestPathAround(from: Point, to: Point, r: Rect): Point[] {
     if (current === -1) break;
     done[current] = true;
     nodes.forEach((node, next) => {
-      if (done[next] || segmentCrossesInside(nodes[current] as Point, node, r)) return;
+      if (done[next] || blocked(nodes[current] as Point, node)) return;
       const through = (best[current] as number) + distance(nodes[current] as Point, node);
       if (through < (best[next] as number)) {
         best[next] = through;

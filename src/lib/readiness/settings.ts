@@ -7,6 +7,21 @@ export const COMMON_PRACTICE = 'Common practice — no published source';
 const amps = (value: number) => z.number().nonnegative().default(value);
 const days = (value: number) => z.number().int().nonnegative().default(value);
 const metres = (value: number) => z.number().nonnegative().default(value);
+// Only ratings that exist: a free number here once let 20 A or 45 A through.
+function oneOf<T extends number>(values: readonly [T, ...T[]], fallback: T, what: string) {
+  const message = `${what}: choose ${values.slice(0, -1).join(', ')}${values.length > 1 ? ' or ' : ''}${values[values.length - 1]}.`;
+  return z
+    .number({ invalid_type_error: message })
+    .refine((value): value is T => (values as readonly number[]).includes(value), { message })
+    .default(fallback) as unknown as z.ZodDefault<z.ZodType<T, z.ZodTypeDef, T>>;
+}
+
+/** Single-phase charge-point currents the settings accept: 16 A (3.6 kW) and 32 A (7.4 kW). */
+export const chargerAmpsValues = [16, 32] as const;
+/** Protective-device ratings offered for the charge-point circuit (In). */
+export const protectiveDeviceAmpsValues = [32, 40] as const;
+/** Conductor temperatures the charge point's and device's terminals may be declared for. */
+export const terminalTemperatureValues = [70, 90] as const;
 
 /**
  * The readiness settings. Parse a partial object to fill in the defaults.
@@ -15,10 +30,12 @@ const metres = (value: number) => z.number().nonnegative().default(value);
  */
 export const readinessSettingsSchema = z.object({
   nominalVoltage: z.number().positive().default(230),
-  chargerAmps: z.number().positive().default(32),
+  chargerAmps: oneOf(chargerAmpsValues, 32, 'Charger rated current'),
   headroomMarginAmps: amps(10),
   smallFuseAmps: amps(60),
-  baselineAmps: amps(10),
+  socketCircuitAmps: amps(32),
+  assumedSocketCircuits: z.number().int().min(1).max(20).default(2),
+  lightingKw: z.number().nonnegative().default(2),
   cookerKw: z.number().nonnegative().default(10),
   cookerUnitHasSocket: z.boolean().default(false),
   immersionKw: z.number().nonnegative().default(3),
@@ -31,6 +48,9 @@ export const readinessSettingsSchema = z.object({
   timingSlackDays: days(7),
   nearSoftGroundMetres: metres(10),
   voltageDropLimitPercent: z.number().positive().max(100).default(5),
+  upstreamDropPercent: z.number().nonnegative().max(5).default(0),
+  protectiveDeviceAmps: oneOf(protectiveDeviceAmpsValues, 32, 'Protective device rating'),
+  terminalTemperatureC: oneOf(terminalTemperatureValues, 70, 'Terminal temperature'),
   longRunMetres: metres(15),
   cableSlackMetres: metres(1),
   defaultTetherMetres: z.number().positive().default(5),
@@ -77,9 +97,10 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
   },
   chargerAmps: {
     label: 'Charger rated current',
-    meaning: 'The new charge point, taken at full rated current with no diversity. 32 A ≈ 7.4 kW single phase.',
+    meaning:
+      'Assumed for a single-phase charge point while the customer has not chosen a rating: 16 A (3.6 kW) or 32 A (7.4 kW), taken at full rated current with no diversity. A chosen rating (3.6, 7.4, 11 or 22 kW) always wins.',
     unit: 'A',
-    source: 'BS 7671:2018+A2:2022 Regulation 722.311',
+    source: 'BS 7671:2018+A2:2022 Regulation 722.311; 32 A × 230 V ≈ 7.4 kW',
   },
   headroomMarginAmps: {
     label: 'Headroom margin',
@@ -93,12 +114,25 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     unit: 'A',
     source: `${COMMON_PRACTICE} (a 60 A cut-out often needs an upgrade)`,
   },
-  baselineAmps: {
-    label: 'Lighting and sockets allowance',
+  socketCircuitAmps: {
+    label: 'Assumed rating of each socket circuit',
     meaning:
-      'A fixed allowance, after diversity, for lighting, socket outlets and small appliances; the checklist does not ask for circuit ratings, so the Table A2 socket rule cannot be applied circuit by circuit.',
+      'Each socket circuit the customer counts is taken at this rating (a 32 A ring final circuit is the usual one); Table A2 then takes 100% of the largest plus 40% of every other.',
     unit: 'A',
+    source: `${COMMON_PRACTICE} (rating assumed); the 100% + 40% rule: IET On-Site Guide Appendix A, Table A2 (as reproduced in The Electrician's Guide, Table 6.2)`,
+  },
+  assumedSocketCircuits: {
+    label: 'Socket circuits assumed when not known',
+    meaning:
+      'Used for the estimate when the customer is not sure how many socket circuits there are. The estimate is then not firm, so the supply check stays amber at best.',
+    unit: 'circuits',
     source: COMMON_PRACTICE,
+  },
+  lightingKw: {
+    label: 'Assumed connected lighting load',
+    meaning: 'The checklist does not ask about lighting: this connected load is assumed, and Table A2 takes 66% of it.',
+    unit: 'kW',
+    source: `${COMMON_PRACTICE} (load assumed); the 66% rule: IET On-Site Guide Appendix A, Table A2 (as reproduced in The Electrician's Guide, Table 6.2)`,
   },
   cookerKw: {
     label: 'Assumed cooker rating',
@@ -171,6 +205,27 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     meaning: 'Largest voltage drop allowed, as a percentage of the nominal voltage, for non-lighting circuits.',
     unit: '%',
     source: 'BS 7671:2018+A2:2022 Appendix 4, section 6.4, Table 4Ab',
+  },
+  upstreamDropPercent: {
+    label: 'Voltage drop already upstream',
+    meaning:
+      'Drop already used before the consumer unit that feeds the charge point, taken off the limit. Default 0%: the limit counts from the origin of the installation, and in the usual home the consumer unit sits at the origin; behind a sub-main, enter the sub-main’s drop.',
+    unit: '%',
+    source: 'BS 7671:2018+A2:2022 Appendix 4, section 6.4 (the limit applies from the origin of the installation)',
+  },
+  protectiveDeviceAmps: {
+    label: 'Protective device rating, In',
+    meaning:
+      'The charge-point circuit’s overcurrent device, 32 A or 40 A. The cable’s corrected capacity must be at least this, not only the charger’s current (Ib ≤ In ≤ Iz).',
+    unit: 'A',
+    source: 'BS 7671:2018+A2:2022 Regulation 433.1.1',
+  },
+  terminalTemperatureC: {
+    label: 'Terminal temperature rating',
+    meaning:
+      'Conductor temperature the charge point’s and device’s terminals are declared for. 70 °C (the usual) sizes a 90 °C cable on the 70 °C ratings; choose 90 only where both are declared for 90 °C.',
+    unit: '°C',
+    source: 'BS 7671:2018+A2:2022 Regulation 512.1.5 and the notes to the 90 °C Appendix 4 tables',
   },
   longRunMetres: {
     label: 'Long cable run',

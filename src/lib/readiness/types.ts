@@ -21,6 +21,14 @@ export type ChargePort =
 export type FuseRating = 60 | 80 | 100;
 export type Looped = 'yes' | 'no' | 'unsure';
 export type Earthing = 'pme' | 'tns' | 'tt' | 'unknown';
+export type SupplyPhases = 'single' | 'three' | 'unsure';
+/** Measures of BS 7671 Regulation 722.411.4.1 the office or surveyor may record for PME. */
+export type EarthingMeasure =
+  | 'open-pen-device'
+  | 'tt-electrode'
+  | 'installation-electrode'
+  | 'balanced-three-phase'
+  | 'other-listed';
 export type ParkingKind = 'attached-drive' | 'garage' | 'detached-bay' | 'none';
 /** How the car is usually parked, as the customer answers it. */
 export type ParkingHabit = 'nose-in' | 'reverse-in' | 'varies';
@@ -64,6 +72,8 @@ export interface LoadAnswers {
   storageHeaters?: number | null;
   otherEvCharger?: boolean | null;
   solarPv?: boolean | null;
+  /** Socket circuits counted from the consumer unit's labels; 'unsure' is an answer. */
+  socketCircuits?: number | 'unsure' | null;
 }
 
 export interface SupplyAnswers {
@@ -73,6 +83,8 @@ export interface SupplyAnswers {
   looped?: Looped | null;
   consumerUnitLocation?: string | null;
   earthing?: Earthing | null;
+  /** Single or three phase, as read from the meter and cut-out; 'unsure' is an answer. */
+  phases?: SupplyPhases | null;
   loads?: LoadAnswers | null;
 }
 
@@ -89,6 +101,8 @@ export interface ChargerAnswers {
   softGround?: boolean | null;
   softGroundMetres?: number | null;
   preference?: ChargerPreference | null;
+  /** The charge point wanted, kW: 3.6, 7.4, 11 or 22. */
+  ratingKw?: number | null;
   tetherMetres?: number | null;
   plan?: DrivewayPlan | null;
 }
@@ -132,9 +146,25 @@ export type CheckId =
   | 'timing'
   | 'documents';
 
+/**
+ * What the office or the surveyor recorded, which no customer answer can supply: a measured
+ * maximum demand, the 722.411.4.1 measure chosen for PME, and a TT electrode's test values.
+ */
+export interface SiteMeasures {
+  /** Existing maximum demand from smart-meter or logger data, amps (highest phase). */
+  measuredMaxDemandAmps?: number | null;
+  earthingMeasure?: EarthingMeasure | null;
+  /** Earth electrode resistance RA, ohms. */
+  electrodeOhms?: number | null;
+  /** Rated residual operating current IΔn of the RCD protecting the electrode's circuit, mA. */
+  rcdIdnMilliamps?: number | null;
+}
+
 /** Everything one check reads; settings are already resolved with their defaults. */
 export interface CheckInput {
   answers: ChecklistAnswers;
+  /** Recorded by staff; empty until they record something. */
+  site: SiteMeasures;
   uploads: readonly UploadSummary[];
   settings: ReadinessSettings;
   /** Today's date, YYYY-MM-DD, passed in so the checks stay pure. */

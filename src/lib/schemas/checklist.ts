@@ -150,6 +150,8 @@ export const vehiclePatchSchema = z
   })
   .strict();
 
+const SOCKETS_MESSAGE = 'Please give the number of socket circuits, from 1 to 20, or choose “not sure”.';
+
 /** The big loads already in the home, which decide the supply headroom. */
 export const loadsPatchSchema = z
   .object({
@@ -161,6 +163,12 @@ export const loadsPatchSchema = z
     storageHeaters: amount(0, 40, 'Please give the storage heaters’ total rating in kW, from 0 to 40 (0 if you have none).'),
     otherEvCharger: yesNo(),
     solarPv: yesNo(),
+    // Counted from the labels in the consumer unit (or its photo); "not sure" is an answer.
+    socketCircuits: z
+      .union([z.number().int(SOCKETS_MESSAGE).min(1, SOCKETS_MESSAGE).max(20, SOCKETS_MESSAGE), z.literal('unsure')], {
+        errorMap: () => ({ message: SOCKETS_MESSAGE }),
+      })
+      .nullish(),
   })
   .strict();
 
@@ -183,6 +191,7 @@ export const supplyPatchSchema = z
     looped: choice(['yes', 'no', 'unsure'], 'Please choose yes, no or not sure.'),
     consumerUnitLocation: text(500),
     earthing: choice(['pme', 'tns', 'tt', 'unknown'], 'Please choose an earthing type, or “I don’t know”.'),
+    phases: choice(['single', 'three', 'unsure'], 'Please choose single phase, three phase or not sure.'),
     loads: loadsPatchSchema.nullish(),
   })
   .strict();
@@ -205,6 +214,11 @@ export const chargerPatchSchema = z
     softGround: yesNo(),
     softGroundMetres: amount(0, 100, 'Please give the distance to soft ground in metres, from 0 to 100.'),
     preference: choice(['tethered', 'socketed'], 'Please choose tethered or socketed.'),
+    ratingKw: z
+      .union([z.literal(3.6), z.literal(7.4), z.literal(11), z.literal(22)], {
+        errorMap: () => ({ message: 'Please choose 3.6, 7.4, 11 or 22 kW.' }),
+      })
+      .nullish(),
     tetherMetres: amount(1, 25, 'Please give the cable length in metres, from 1 to 25.'),
     plan: drivewayPlanSchema.nullish(),
   })
@@ -279,6 +293,7 @@ export const sectionRequiredFields: { [K in SectionId]: (section: SectionData<K>
     'looped',
     'consumerUnitLocation',
     'earthing',
+    'phases',
     ...loadFields.map((field) => `loads.${field}`),
   ],
   parking: () => ['kind', 'cars', 'habit'],
@@ -290,6 +305,7 @@ export const sectionRequiredFields: { [K in SectionId]: (section: SectionData<K>
     ...(charger.softGround === true ? ['softGroundMetres'] : []),
     'preference',
     ...(charger.preference === 'tethered' ? ['tetherMetres'] : []),
+    'ratingKw',
   ],
 };
 
@@ -346,6 +362,27 @@ export function fieldWarnings(checklist: Checklist, today: Date = new Date()): R
     if (result.ok && result.warning) warnings.set('vehicle.registration', result.warning);
   }
   return Object.fromEntries(warnings);
+}
+
+// ---- consistency across sections ------------------------------------------------------------
+
+/**
+ * Answers that cannot stand together once merged: an 11 or 22 kW charge point needs a
+ * three-phase supply, so it is refused on a supply the customer says is single phase. Keyed by
+ * the field the customer should change.
+ *
+ * @example checklistConflicts({ supply: { phases: 'single' }, charger: { ratingKw: 22 } }) // { 'charger.ratingKw': 'An 11 or 22 kW charger …' }
+ */
+export function checklistConflicts(checklist: Checklist): Record<string, string> {
+  const phases = checklist.supply?.phases;
+  const rating = checklist.charger?.ratingKw;
+  if (phases === 'single' && (rating === 11 || rating === 22)) {
+    return {
+      'charger.ratingKw':
+        'An 11 or 22 kW charger needs a three-phase supply, and your supply is single phase. Please choose 3.6 or 7.4 kW, or change the supply answer if it is three phase.',
+    };
+  }
+  return {};
 }
 
 // ---- merging and errors ---------------------------------------------------------------------

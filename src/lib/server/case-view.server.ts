@@ -3,6 +3,7 @@ import type { CaseRow, Role } from '../../db/schema';
 import { fieldWarnings, sectionProgress, type Checklist } from '../schemas/checklist';
 import { checkMpanCore } from '../validation/mpan';
 import type { CheckResult } from '../readiness';
+import { readSiteMeasures } from '../schemas/outcome';
 
 /** Stages in which the customer may still change their answers. */
 export const editableStages: CaseRow['stage'][] = ['invited', 'filling_in', 'sent_for_review', 'in_review', 'ready_for_survey'];
@@ -44,6 +45,7 @@ export function toCaseView(row: CaseRow, role: Role) {
     region: mpan?.ok ? mpan.region : null,
     editable: editableStages.includes(row.stage),
     address: { addressLine1: row.addressLine1, addressLine2: row.addressLine2, town: row.town, postcode: row.postcode },
+    siteMeasures: readSiteMeasures(row.siteMeasures),
     readiness: { light: row.readinessLight, gapCount: row.readinessGaps, checks: checksFor(row.readinessChecks as CheckResult[], role), at: row.readinessAt?.toISOString() ?? null },
     surveyDate: row.surveyDate,
     // For the office: what the customer changed after the case was marked ready.

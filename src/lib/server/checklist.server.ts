@@ -1,7 +1,7 @@
 // Server-only: saving the customer's checklist and sending it for review.
 import { and, eq, sql } from 'drizzle-orm';
 import { cases, type CaseRow } from '../../db/schema';
-import { mergeChecklist, sectionProgress, type Checklist, type ChecklistPatch } from '../schemas/checklist';
+import { checklistConflicts, mergeChecklist, sectionProgress, type Checklist, type ChecklistPatch } from '../schemas/checklist';
 import { audit } from './audit.server';
 import { editableStages, toCaseView } from './case-view.server';
 import { transaction } from './db.server';
@@ -50,12 +50,17 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
     }
     const before = current.checklist as Checklist;
     const after = mergeChecklist(before, patch);
+    // Checked on the merged answers, since the two fields sit in different sections.
+    const conflicts = checklistConflicts(after);
+    if (Object.keys(conflicts).length > 0) {
+      throw new HttpError(422, 'invalid', 'Some answers do not fit together. Nothing was saved.', conflicts);
+    }
     const changes = diff(before, after);
     if (Object.keys(changes).length === 0) return toCaseView(current, user.role);
     const about = after.about ?? {};
     const isCustomer = user.role === 'customer';
     // Readiness of the new answers, stored by the same UPDATE: fewer round trips while the row is locked.
-    const readiness = await computeReadiness(tx, { id: row.id, checklist: after }, settings);
+    const readiness = await computeReadiness(tx, { id: row.id, checklist: after, siteMeasures: current.siteMeasures }, settings);
     const [saved] = await tx
       .update(cases)
       .set({

@@ -3,7 +3,7 @@
 // values; then the office is told by e-mail.
 import { and, eq } from 'drizzle-orm';
 import { cases, surveyOutcomes, type CaseRow } from '../../db/schema';
-import { earthingLabels, measurementFields, measurementIds, outcomeLabels, type OutcomeBody } from '../schemas/outcome';
+import { earthingLabels, earthingMeasureOptionLabels, measurementFields, measurementIds, mergeSiteMeasures, outcomeLabels, outcomeSiteMeasures, readSiteMeasures, type OutcomeBody } from '../schemas/outcome';
 import { stageLabels, type StageId } from '../stages';
 import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
@@ -41,6 +41,7 @@ export async function recordOutcome(actor: SessionUser, row: CaseRow, body: Outc
     if (!moved) throw new HttpError(409, 'conflict', 'The case moved while you were recording the visit. Reload and check it.', undefined, { stage: null });
     const values = {
       outcome: body.outcome,
+      earthingMeasure: body.earthingMeasure,
       confirmedEarthing: body.confirmedEarthing,
       confirmedFuseAmps: body.confirmedFuseAmps,
       measurements: body.measurements,
@@ -49,6 +50,11 @@ export async function recordOutcome(actor: SessionUser, row: CaseRow, body: Outc
       recordedAt: new Date(),
     };
     await tx.insert(surveyOutcomes).values({ caseId: row.id, ...values }).onConflictDoUpdate({ target: surveyOutcomes.caseId, set: values });
+    // The measure, RA, IΔn and any measured demand feed the checks through the case's site measures.
+    const found = outcomeSiteMeasures(body);
+    if (Object.keys(found).length > 0) {
+      await tx.update(cases).set({ siteMeasures: mergeSiteMeasures(readSiteMeasures(moved.siteMeasures), found) }).where(eq(cases.id, row.id));
+    }
     await audit(tx, { caseId: row.id, actorId: actor.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: outcomeStage }, after: { stage: 'surveyed', outcome: body.outcome } });
     await audit(tx, { caseId: row.id, actorId: actor.id, action: 'survey.recorded', entity: 'survey_outcome', entityId: row.id, after: { ...values, recordedAt: values.recordedAt.toISOString() } });
     // The checks now read the confirmed earthing and fuse in place of the customer's answers.
@@ -83,6 +89,7 @@ export function outcomeEmail(actor: SessionUser, row: CaseRow, body: OutcomeBody
     `Outcome: ${outcomeLabels[body.outcome]}`,
     `Earthing: ${body.confirmedEarthing ? `${earthingLabels[body.confirmedEarthing]} (confirmed on site)` : 'not confirmed'}`,
     `Main fuse: ${body.confirmedFuseAmps ? `${body.confirmedFuseAmps} A (confirmed on site)` : 'not confirmed'}`,
+    ...(body.earthingMeasure ? [`722.411.4.1 measure: ${earthingMeasureOptionLabels[body.earthingMeasure]}`] : []),
     ...measurementIds
       .filter((id) => typeof body.measurements[id] === 'number')
       .map((id) => `${measurementFields[id].label}: ${body.measurements[id]} ${measurementFields[id].unit}`),

@@ -16,6 +16,9 @@ import {
   formatMoment,
   lightWords,
   networkRouteWords,
+  cableBasisWords,
+  demandBasisWords,
+  electrodeTestWords,
   uploadStateWords,
   wayWords,
 } from '../../components/surveyor/pack-words';
@@ -96,7 +99,8 @@ function rangesCheck(spec: string): (codePoint: number) => boolean {
 }
 
 // Characters the pack's own texts use that the latin subset lacks, in words the font has.
-const stand_ins: Record<string, string> = { '≤': '<=', '≥': '>=', 'Ω': ' ohm', '→': '->', '≈': '~', '✓': '' };
+// Δ is written out so "IΔn" (the RCD's rated residual current) never turns into "I?n".
+const stand_ins: Record<string, string> = { '≤': '<=', '≥': '>=', 'Ω': ' ohm', '→': '->', '≈': '~', '✓': '', 'Δ': 'Delta ', '√': 'sqrt' };
 
 /**
  * Text the embedded font can draw: known stand-ins first, then accents dropped, then "?".
@@ -519,14 +523,17 @@ function demandBlock(w: PackWriter, pack: Pack) {
     ],
     [
       ...d.items.map((i) => [i.load, i.declared, `${fmt(i.allowanceAmps)} A`, { text: i.rule, colour: colours.muted }] as Cell[]),
-      [{ text: 'Assessed maximum demand', bold: true }, '', { text: `${fmt(d.assessedDemandAmps)} A`, bold: true }, 'Existing after diversity + charger at full load'],
+      [{ text: `Assessed maximum demand${d.supplyPhases === 3 ? ' (busiest phase)' : ''}`, bold: true }, '', { text: `${fmt(d.assessedDemandAmps)} A`, bold: true }, d.basis === 'measured' ? 'Existing as measured + charger at full load' : 'Existing after diversity + charger at full load'],
     ],
   );
   const rows: [string, string][] = [
     ['Main fuse (cut-out)', d.fuseAmps === null ? 'Not known' : `${d.fuseAmps} A`],
     ['Headroom', headroomWords(d)],
+    ['Basis', demandBasisWords(d)],
+    ...(d.phaseDemandAmps ? [['Per phase', d.phaseDemandAmps.map((a, i) => `L${i + 1} ${fmt(a)} A`).join(', ')] as [string, string]] : []),
   ];
   w.pairs(rows);
+  if (d.assumptions.length) w.bullets(d.assumptions, { size: 8 });
 }
 
 function networkBlock(w: PackWriter, pack: Pack) {
@@ -539,38 +546,54 @@ function networkBlock(w: PackWriter, pack: Pack) {
     ['Demand against limit', `${fmt(n.assessedDemandAmps)} A of ${fmt(n.demandLimitAmps)} A`],
     ['Lead time allowed', n.route === 'apply-before' ? `${n.leadTimeDays} days` : `Notify within ${n.notifyWithinDays} days`],
   ]);
-  if (n.reasons.length) w.bullets(n.reasons.map((r) => r.text), { size: 9 });
+  if (n.reasons.length) w.bullets(n.reasons.map((r) => `${r.text}${r.certain === false ? ' (possible: an answer is missing)' : ''}`), { size: 9 });
+}
+
+function earthingBlock(w: PackWriter, pack: Pack) {
+  const e = pack.figures.earthing;
+  if (!e) return;
+  w.subheading(`Earthing${e.confirmedOnSite ? ' (confirmed on site)' : ''}`);
+  const words: Record<string, string> = { pme: 'PME (TN-C-S)', tns: 'TN-S', tt: 'TT', unknown: 'Not known: treated as PME' };
+  w.pairs([
+    ['Arrangement', words[e.earthing] ?? e.earthing],
+    ['722.411.4.1 measure', e.measureLabel ?? (e.measureNeeded ? 'Not recorded yet: amber until it is' : 'Not needed')],
+    ...(e.electrodeTest ? [['Electrode', electrodeTestWords(e.electrodeTest)] as [string, string]] : []),
+  ]);
 }
 
 function cableRunBlock(w: PackWriter, pack: Pack) {
   const c = pack.figures.cableRun;
   if (!c) return;
-  w.subheading('Voltage drop by cable size');
+  w.subheading('Cable size: capacity and voltage drop');
+  w.para(`${cableBasisWords(c)}.${c.routeAssumption ? ` ${c.routeAssumption}.` : ''}`, { size: 9 });
+  if (c.factors.length) w.para(`Factors: ${c.factors.map((x) => `${x.name} ${fmt(x.value)} (${x.basis})`).join('; ')}.`, { size: 8 });
   if (c.lengthMetres === null || c.sizes.length === 0) {
     w.para('Cable run length not given: voltage drop not computed.');
     return;
   }
   w.para(
-    `${fmt(c.currentAmps)} A over ${fmt(c.lengthMetres)} m; limit ${fmt(c.limitPercent)}% (${fmt(c.limitVolts)} V). ${c.table}. Recommended: ${c.recommendedCsaMm2 === null ? 'no size passes' : `${c.recommendedCsaMm2} mm²`}.`,
+    `${fmt(c.currentAmps)} A over ${fmt(c.lengthMetres)} m. ${c.table}. Recommended: ${c.recommendedCsaMm2 === null ? 'no size passes' : `${c.recommendedCsaMm2} mm²`}.`,
     { size: 9 },
   );
   const highlight = c.sizes.findIndex((s) => s.csaMm2 === c.recommendedCsaMm2);
   w.table(
     [
-      { header: 'Size', width: 70 },
-      { header: 'mV/A/m', width: 60 },
-      { header: 'Drop', width: 70 },
-      { header: 'Drop %', width: 60 },
-      { header: 'Capacity', width: 70 },
-      { header: 'Result', width: w.width - 330 },
+      { header: 'Size', width: 60 },
+      { header: 'mV/A/m', width: 50 },
+      { header: 'Drop', width: 60 },
+      { header: 'Drop %', width: 50 },
+      { header: 'It', width: 45 },
+      { header: 'Iz', width: 50 },
+      { header: 'Result', width: w.width - 315 },
     ],
     c.sizes.map((s, i) => [
       `${s.csaMm2} mm²`,
       fmt(s.mvPerAPerM),
       `${fmt(s.volts)} V`,
       `${fmt(s.percent)}%`,
-      `${s.capacityAmps} A`,
-      { text: i === highlight ? 'Passes: recommended' : s.passes ? 'Passes' : s.passesDrop ? 'Too small for the current' : 'Drop too high', colour: s.passes ? colours.green : colours.red, bold: i === highlight },
+      `${s.tabulatedAmps} A`,
+      `${fmt(s.capacityAmps)} A`,
+      { text: i === highlight ? 'Passes: recommended' : s.passes ? 'Passes' : s.passesCapacity === false ? 'Iz below In' : 'Drop too high', colour: s.passes ? colours.green : colours.red, bold: i === highlight },
     ]),
     { highlight: highlight >= 0 ? highlight : undefined },
   );
@@ -762,6 +785,7 @@ export async function packPdf(pack: Pack): Promise<Buffer> {
   w.heading('Computed figures');
   demandBlock(w, pack);
   networkBlock(w, pack);
+  earthingBlock(w, pack);
   cableRunBlock(w, pack);
   reachBlock(w, pack);
   outcomeBlock(w, pack);

@@ -9,6 +9,7 @@ import {
   requiredUploadKinds,
   uploadKindStatus,
   type CableSizeRow,
+  type CorrectionFactor,
   type ChecklistAnswers,
   type CheckId,
   type DemandItem,
@@ -85,6 +86,7 @@ export interface Pack {
     network: NetworkFigures | null;
     cableRun: CableRunFigures | null;
     reach: ReachFigures | null;
+    earthing: EarthingFigures | null;
   };
   photos: PackUpload[];
   documents: PackDocumentLine[];
@@ -106,6 +108,22 @@ export type DemandFigures = {
   loadsDeclared: boolean;
   headroomByRating: { rating: number; headroomAmps: number }[];
   confirmedOnSite: boolean;
+  /** 'measured' when a maximum demand from smart-meter or logger data replaced the estimate. */
+  basis: 'estimated' | 'measured';
+  firm: boolean;
+  lowerBoundDemandAmps: number | null;
+  chargerKw: number | null;
+  chargerPhases: number;
+  supplyPhases: number;
+  phaseDemandAmps: number[] | null;
+  assumptions: string[];
+};
+export type EarthingFigures = {
+  earthing: string;
+  measureNeeded: boolean;
+  measureLabel: string | null;
+  electrodeTest: { raOhms: number | null; idnMilliamps: number | null; touchVolts: number | null; passes: boolean | null; possiblyUnstable: boolean | null } | null;
+  confirmedOnSite: boolean;
 };
 export type NetworkFigures = {
   route: string;
@@ -117,9 +135,19 @@ export type NetworkFigures = {
   assessedDemandAmps: number;
   fuseAmps: number | null;
   region: string | null;
+  supplyPhases: number;
 };
 export type CableRunFigures = {
   currentAmps: number;
+  deviceAmps: number | null;
+  terminalTemperatureC: number | null;
+  method: string | null;
+  phases: number;
+  factors: CorrectionFactor[];
+  factor: number | null;
+  routeAssumption: string | null;
+  upstreamPercent: number;
+  chargerChosen: boolean;
   lengthMetres: number | null;
   route: string | null;
   limitPercent: number;
@@ -142,7 +170,7 @@ export type ReachFigures = {
 /** Trade cautions for the surveyor beyond the customer's three, each with its source. */
 const siteCautions = [
   {
-    text: 'PME and an outdoor charging point: a PME earthing facility is not to be used unless one of the listed measures applies (an installation earth electrode, or a device that disconnects live and protective conductors on a broken PEN). Check the current amendment.',
+    text: 'PME and an outdoor charging point: a PME earthing facility is not to be used unless one of the listed measures applies (an installation earth electrode, or a device that disconnects live and protective conductors on a broken PEN). Check the current amendment. The earthing check stays amber until the measure is recorded; open soil only says whether an electrode is practical.',
     source: 'BS 7671:2018+A2:2022 Regulation 722.411.4.1',
   },
   {
@@ -328,6 +356,7 @@ function figuresOf(checks: SiteCheckResult[], checklist: Checklist): Pack['figur
     network: networkFigures(byId('network-operator')),
     cableRun: cableRunFigures(byId('cable-run')),
     reach: reachFigures(byId('cable-reach'), checklist),
+    earthing: earthingFigures(byId('earthing')),
   };
 }
 
@@ -346,6 +375,26 @@ function demandFigures(check: SiteCheckResult | undefined): DemandFigures | null
     loadsDeclared: Boolean(f.loadsDeclared),
     headroomByRating: Object.entries(byRating).map(([rating, headroomAmps]) => ({ rating: Number(rating), headroomAmps })),
     confirmedOnSite: Boolean(check.confirmedOnSite),
+    basis: f.basis === 'measured' ? 'measured' : 'estimated',
+    firm: Boolean(f.firm),
+    lowerBoundDemandAmps: num(f.lowerBoundDemandAmps),
+    chargerKw: num(f.chargerKw),
+    chargerPhases: num(f.chargerPhases) ?? 1,
+    supplyPhases: num(f.supplyPhases) ?? 1,
+    phaseDemandAmps: Array.isArray(f.phaseDemandAmps) ? (f.phaseDemandAmps as number[]) : null,
+    assumptions: (Array.isArray(f.assumptions) ? f.assumptions : []).filter((a): a is string => typeof a === 'string'),
+  };
+}
+
+function earthingFigures(check: SiteCheckResult | undefined): EarthingFigures | null {
+  if (!check) return null;
+  const f = check.figures;
+  return {
+    earthing: str(f.earthing) ?? 'unknown',
+    measureNeeded: Boolean(f.measureNeeded),
+    measureLabel: str(f.earthingMeasureLabel),
+    electrodeTest: f.electrodeTest && typeof f.electrodeTest === 'object' ? (f.electrodeTest as EarthingFigures['electrodeTest']) : null,
+    confirmedOnSite: Boolean(check.confirmedOnSite),
   };
 }
 
@@ -362,6 +411,7 @@ function networkFigures(check: SiteCheckResult | undefined): NetworkFigures | nu
     assessedDemandAmps: num(f.assessedDemandAmps) ?? 0,
     fuseAmps: num(f.fuseAmps),
     region: str(f.region),
+    supplyPhases: num(f.supplyPhases) ?? 1,
   };
 }
 
@@ -370,11 +420,20 @@ function cableRunFigures(check: SiteCheckResult | undefined): CableRunFigures | 
   const f = check.figures;
   return {
     currentAmps: num(f.currentAmps) ?? 0,
+    deviceAmps: num(f.deviceAmps),
+    terminalTemperatureC: num(f.terminalTemperatureC),
+    method: str(f.method),
+    phases: num(f.phases) ?? 1,
+    factors: (Array.isArray(f.factors) ? f.factors : []) as CorrectionFactor[],
+    factor: num(f.factor),
+    routeAssumption: str(f.routeAssumption),
+    upstreamPercent: num(f.upstreamPercent) ?? 0,
+    chargerChosen: f.chargerChosen !== false,
     lengthMetres: num(f.lengthMetres),
     route: str(f.route),
     limitPercent: num(f.limitPercent) ?? 0,
     limitVolts: num(f.limitVolts) ?? 0,
-    table: str(f.table) ?? 'BS 7671 Table 4E4B (voltage drop) and Table 4E4A (capacity)',
+    table: str(f.table) ?? 'BS 7671 Table 4E4B (voltage drop) and Tables 4D4A / 4E4A (capacity)',
     sizes: (Array.isArray(f.sizes) ? f.sizes : []) as CableSizeRow[],
     recommendedCsaMm2: num(f.recommendedCsaMm2),
   };

@@ -4,7 +4,7 @@ import { eq, notInArray } from 'drizzle-orm';
 import { cases, surveyOutcomes, uploads, type CaseRow } from '../../db/schema';
 import { runChecks, type ChecklistAnswers, type ReadinessResult, type ReadinessSettings, type UploadSummary } from '../readiness';
 import { lightRank } from '../readiness/lights';
-import { markConfirmedOnSite, withSiteFindings, type SiteFindings } from '../schemas/outcome';
+import { markConfirmedOnSite, readSiteMeasures, withSiteFindings, type SiteFindings } from '../schemas/outcome';
 import { db } from './db.server';
 import { refreshSearchTextSql } from '../../db/search-text';
 import { readinessSettings, todayInGb } from './settings.server';
@@ -27,18 +27,23 @@ export async function siteFindings(conn: Conn, caseId: string): Promise<SiteFind
 
 /**
  * Readiness for one case as it stands in the database now. Values the surveyor confirmed on
- * site replace the customer's answers, and the checks resting on them are marked confirmedOnSite.
+ * site replace the customer's answers, and the checks resting on them are marked confirmedOnSite;
+ * what the office or surveyor recorded (site measures) goes in beside the answers.
  * Every query goes through `conn`; the settings are read by the caller (before any transaction
  * opens), so a transaction never waits for a second pool connection.
  *
  * @example const r = await computeReadiness(db(), row, await readinessSettings());
  */
-export async function computeReadiness(conn: Conn, row: Pick<CaseRow, 'id' | 'checklist'>, settings: ReadinessSettings): Promise<ReadinessResult> {
+export async function computeReadiness(
+  conn: Conn,
+  row: Pick<CaseRow, 'id' | 'checklist' | 'siteMeasures'>,
+  settings: ReadinessSettings,
+): Promise<ReadinessResult> {
   // One after the other: a transaction's queries share one connection anyway.
   const summaries = await uploadSummaries(conn, row.id);
   const findings = await siteFindings(conn, row.id);
   const answers = withSiteFindings(row.checklist as ChecklistAnswers, findings);
-  const result = runChecks({ answers, uploads: summaries, settings, today: todayInGb() });
+  const result = runChecks({ answers, uploads: summaries, site: readSiteMeasures(row.siteMeasures), settings, today: todayInGb() });
   return { ...result, checks: markConfirmedOnSite(result.checks, findings) };
 }
 
@@ -49,7 +54,7 @@ export async function computeReadiness(conn: Conn, row: Pick<CaseRow, 'id' | 'ch
  * @example const settings = await readinessSettings(); await transaction((tx) => refreshReadiness(tx, id, settings));
  */
 export async function refreshReadiness(conn: Conn, caseId: string, settings: ReadinessSettings): Promise<ReadinessResult | undefined> {
-  const [row] = await conn.select({ id: cases.id, checklist: cases.checklist }).from(cases).where(eq(cases.id, caseId));
+  const [row] = await conn.select({ id: cases.id, checklist: cases.checklist, siteMeasures: cases.siteMeasures }).from(cases).where(eq(cases.id, caseId));
   if (!row) return undefined;
   const result = await computeReadiness(conn, row, settings);
   await conn.update(cases).set(readinessColumns(result)).where(eq(cases.id, caseId));

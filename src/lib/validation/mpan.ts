@@ -1,16 +1,31 @@
 // MPAN core checks: pure and client-safe, so the form and the server apply the same rule.
-// Source: the MRA/Elexon MPAN definition as described in the Wikipedia article
-// "Meter Point Administration Number" (see /work/shared/TRADE-REFERENCE.md).
+// Source: the market operator's MPAN definition in the Master Registration Agreement; the
+// open-source mpan reference library (limejump/mpan) agrees on the check digit.
 
 /** Why an MPAN core was refused. */
 export type MpanRefusal = 'length' | 'characters' | 'check-digit' | 'distributor';
 
+/** How far the distributor ID is known: a GB region, a listed independent network, or not listed. */
+export type DistributorStatus = 'region' | 'independent' | 'unlisted';
+
 export type MpanResult =
-  | { ok: true; core: string; distributorId: string; region: string }
+  | { ok: true; core: string; distributorId: string; region: string; distributorStatus: DistributorStatus }
   | { ok: false; reason: MpanRefusal; message: string };
 
-/** Shown instead of a region for distributor IDs 24 and above. */
+/** Shown instead of a region for a listed independent network operator's ID. */
 export const INDEPENDENT_NETWORK = 'independent network';
+/** Shown for an ID from 24 up that is not on the list below. */
+export const UNLISTED_DISTRIBUTOR = 'distributor ID not on our list';
+
+/**
+ * Distributor IDs the market operator lists for independent network operators (IDNOs). From
+ * memory, not seen in the published list: 24 to 37. Names are never shown, only "independent
+ * network". An ID from 24 up that is not here is accepted (the check digit decides validity)
+ * but shown as unlisted, amber, for the office to confirm.
+ */
+export const independentNetworkIds: ReadonlySet<string> = new Set(
+  ['24', '25', '26', '27', '28', '29', '30', '31', '32', '33', '34', '35', '36', '37'],
+);
 
 /**
  * The 14 GB distribution regions by distributor ID (region names only, never company names).
@@ -63,11 +78,24 @@ export function mpanCheckDigit(first12: string): number {
  * The region name for a two-digit distributor ID, or null when it is not a GB distributor.
  *
  * @example regionForDistributor('24') // 'independent network'
+ * @example regionForDistributor('99') // 'distributor ID not on our list'
  */
 export function regionForDistributor(distributorId: string): string | null {
-  const id = Number(distributorId);
-  if (!/^\d{2}$/.test(distributorId) || id < 10) return null;
-  return mpanRegions[distributorId] ?? INDEPENDENT_NETWORK;
+  const status = distributorStatus(distributorId);
+  if (status === null) return null;
+  if (status === 'region') return mpanRegions[distributorId] as string;
+  return status === 'independent' ? INDEPENDENT_NETWORK : UNLISTED_DISTRIBUTOR;
+}
+
+/**
+ * Whether an ID is one of the 14 regions (10–23), a listed independent network, or unlisted.
+ *
+ * @example distributorStatus('38') // 'unlisted'
+ */
+export function distributorStatus(distributorId: string): DistributorStatus | null {
+  if (!/^\d{2}$/.test(distributorId) || Number(distributorId) < 10) return null;
+  if (mpanRegions[distributorId]) return 'region';
+  return independentNetworkIds.has(distributorId) ? 'independent' : 'unlisted';
 }
 
 /**
@@ -90,7 +118,7 @@ export function checkMpanCore(input: string): MpanResult {
   if (mpanCheckDigit(core.slice(0, 12)) !== Number(core[12])) {
     return refuse('check-digit', 'This MPAN core does not add up: one digit is probably mistyped. Please check it against your electricity bill.');
   }
-  return { ok: true, core, distributorId, region };
+  return { ok: true, core, distributorId, region, distributorStatus: distributorStatus(distributorId) as DistributorStatus };
 }
 
 function refuse(reason: MpanRefusal, message: string): MpanResult {

@@ -55,20 +55,34 @@ function asCurrent(compact: string, today: Date): Recognised | null {
   const match = /^([A-Z]{2})(\d{2})([A-Z]{3})$/.exec(compact);
   if (!match) return null;
   const [, memoryTag, age, random] = match as unknown as [string, string, string, string];
-  const warning = ageIdentifierWarning(age, today) ?? currentLettersWarning(memoryTag + random);
+  const warning = ageIdentifierWarning(age, today) ?? currentLettersWarning(memoryTag, random);
   return { registration: `${memoryTag}${age} ${random}`, format: 'current', ...(warning ? { warning } : {}) };
 }
 
 // INF104 suffix format, 1963–82: three letters, one to three digits, a year letter (ABC 123A).
 function asSuffix(compact: string): Recognised | null {
   const match = /^([A-Z]{3})(\d{1,3}[A-Z])$/.exec(compact);
-  return match ? { registration: `${match[1]} ${match[2]}`, format: 'suffix' } : null;
+  if (!match) return null;
+  const warning = yearLetterWarning(match[2]!.slice(-1), SUFFIX_UNUSED, 'last');
+  return { registration: `${match[1]} ${match[2]}`, format: 'suffix', ...(warning ? { warning } : {}) };
 }
 
 // INF104 prefix format, 1983–2001: a year letter, one to three digits, three letters (A123 ABC).
 function asPrefix(compact: string): Recognised | null {
   const match = /^([A-Z]\d{1,3})([A-Z]{3})$/.exec(compact);
-  return match ? { registration: `${match[1]} ${match[2]}`, format: 'prefix' } : null;
+  if (!match) return null;
+  const warning = yearLetterWarning(match[1]!.charAt(0), PREFIX_UNUSED, 'first');
+  return { registration: `${match[1]} ${match[2]}`, format: 'prefix', ...(warning ? { warning } : {}) };
+}
+
+// From memory (INF104 as summarised does not list them): year letters skipped I, O, U and Z,
+// and the suffix series Q too; a prefix Q marks a vehicle of unknown age, so it is not warned.
+const SUFFIX_UNUSED = /[IOQUZ]/;
+const PREFIX_UNUSED = /[IOUZ]/;
+
+function yearLetterWarning(letter: string, unused: RegExp, where: 'first' | 'last'): string | null {
+  if (!unused.test(letter)) return null;
+  return `The ${where} letter of this kind of number plate gives the year, and ${letter} was not used for that. Is it a number, or another letter? Please check it against your V5C.`;
 }
 
 // Rule used (from memory, INF104 only says NI "uses its own system"): one to three letters then
@@ -113,8 +127,14 @@ function ageIdentifierWarning(age: string, today: Date): string | null {
   return null;
 }
 
-// From memory (not in the trade reference): current-format marks do not use the letters I or Q.
-function currentLettersWarning(letters: string): string | null {
-  if (!/[IQ]/.test(letters)) return null;
-  return 'Current number plates do not normally use the letters I or Q. Is one of them a 1 or a 0? Please check it against your V5C.';
+// From memory (not in the trade reference): the two-letter memory tag never uses I, Q or Z,
+// and the three random letters never use I or Q (Z is used there).
+function currentLettersWarning(memoryTag: string, random: string): string | null {
+  const tag = /[IQZ]/.exec(memoryTag)?.[0];
+  if (tag) {
+    return `The first two letters of a current number plate never include ${tag}. Is it a 1, a 0, a 2 or another letter? Please check it against your V5C.`;
+  }
+  const last = /[IQ]/.exec(random)?.[0];
+  if (last) return `The last three letters of a current number plate never include ${last}. Is it a 1 or a 0? Please check it against your V5C.`;
+  return null;
 }

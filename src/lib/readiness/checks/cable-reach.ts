@@ -50,10 +50,14 @@ export function checkCableReach({ answers, settings }: CheckInput): CheckResult 
   if (!plan) return gapResult(`Plan incomplete: ${problems.join(' ')}`, problems[0] as string, cable);
   const port = plan.chargePort ?? answers.vehicle?.chargePort ?? null;
   if (!port) return gapResult('Charge port position not given.', "Tell us where the charge port is on your car.", cable);
+  // Another car in the other bay is an obstacle unless the customer said there is only one car.
+  const cars = answers.parking?.cars;
+  const otherBaysOccupied = typeof cars !== 'number' || cars >= 2;
   const verdicts = reachVerdict(plan, cable.metres, habit, {
     port,
     slackMetres: settings.cableSlackMetres,
     portInsetMetres: settings.portInsetMetres,
+    otherBaysOccupied,
   });
   const allReach = verdicts.every((v) => v.reaches);
   return {
@@ -70,6 +74,8 @@ export function checkCableReach({ answers, settings }: CheckInput): CheckResult 
       habit,
       car: carSize(plan.car),
       slackMetres: settings.cableSlackMetres,
+      bays: plan.bays.length,
+      otherBaysOccupied: plan.bays.length > 1 ? otherBaysOccupied : null,
       verdicts,
     },
     source: SOURCE,

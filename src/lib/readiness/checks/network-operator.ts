@@ -12,8 +12,8 @@ const SOURCE = `${ENA_SOURCE}; lead time of a supply upgrade: ${COMMON_PRACTICE}
  * @example checkNetworkOperator({ answers: { supply: { mainFuseAmps: 100, looped: 'yes', loads: {} } }, uploads: [], settings: defaultReadinessSettings, today: '2025-01-01' }).figures.route
  * // 'apply-before'
  */
-export function checkNetworkOperator({ answers, settings }: CheckInput): CheckResult {
-  const decision = decideNetworkRoute(answers, settings);
+export function checkNetworkOperator({ answers, site, settings }: CheckInput): CheckResult {
+  const decision = decideNetworkRoute(answers, site, settings);
   const light: Light = decision.route === 'notify-after' && decision.settled ? 'green' : 'amber';
   const region = regionOf(answers.supply?.mpanCore);
   return {
@@ -26,6 +26,9 @@ export function checkNetworkOperator({ answers, settings }: CheckInput): CheckRe
       route: decision.route,
       reasons: decision.reasons,
       settled: decision.settled,
+      applyBeforeKnown: decision.applyBeforeKnown,
+      routeName: decision.route === 'notify-after' ? 'connect and notify' : 'apply to connect',
+      supplyPhases: decision.supplyPhases,
       leadTimeDays: decision.route === 'apply-before' ? settings.supplyUpgradeLeadDays : 0,
       notifyWithinDays: settings.notifyWithinDays,
       assessedDemandAmps: decision.assessedDemandAmps,
@@ -49,7 +52,7 @@ function customerText(decision: NetworkRouteDecision, settings: ReadinessSetting
     const pending = decision.settled ? '' : ' We still need one or two answers about your supply to be sure.';
     return `Your installer can fit the charger and then let your local network operator know within ${settings.notifyWithinDays} days — nothing for you to arrange.${pending}`;
   }
-  const onlyUnknowns = decision.reasons.every((r) => r.code === 'looped-unknown' || r.code === 'cutout-unknown');
+  const onlyUnknowns = !decision.applyBeforeKnown;
   const need = onlyUnknowns
     ? 'Until we know a little more about your supply, we plan as if your installer must apply to your local network operator (the company that runs the cables to your street) before the charger is connected.'
     : 'Before the charger is connected, your installer needs to apply to your local network operator (the company that runs the cables to your street).';
@@ -60,10 +63,11 @@ function staffText(decision: NetworkRouteDecision, region: string | null, settin
   const area = region ? ` DNO region: ${region}.` : '';
   if (decision.route === 'notify-after') {
     const pending = decision.settled ? '' : ' Not settled: fuse, looped supply or loads still unknown.';
-    return `ENA notify-after: all notification criteria met (demand ${decision.assessedDemandAmps} A ≤ ${settings.enaDemandLimitAmps} A and within the cut-out, not looped). Notify within ${settings.notifyWithinDays} days of connection.${pending}${area}`;
+    const perPhase = decision.supplyPhases === 3 ? ' per phase' : '';
+    return `ENA "connect and notify" (from memory): all notification criteria met (demand ${decision.assessedDemandAmps} A${perPhase} ≤ ${settings.enaDemandLimitAmps} A and within the cut-out, charge point ≤ 32 A per phase, not looped). Notify within ${settings.notifyWithinDays} days of connection.${pending}${area}`;
   }
-  const why = decision.reasons.map((r) => r.text).join(' ');
-  return `ENA apply-before: ${why} Allow ${settings.supplyUpgradeLeadDays} days (common practice).${area}`;
+  const why = decision.reasons.map((r) => `${r.text}${r.certain ? '' : ' (possible: answer missing)'}`).join(' ');
+  return `ENA "apply to connect"${decision.applyBeforeKnown ? '' : ' assumed until answers are in'}: ${why} Allow ${settings.supplyUpgradeLeadDays} days (common practice).${area}`;
 }
 
 function actions(decision: NetworkRouteDecision): string[] {
@@ -71,9 +75,10 @@ function actions(decision: NetworkRouteDecision): string[] {
   const codes = new Set(decision.reasons.map((r) => r.code));
   if (codes.has('cutout-unknown')) list.push('Send a clear photo of the cut-out so the fuse rating can be read (photos only).');
   if (codes.has('looped-unknown')) list.push('Find out whether the supply is looped (shared with a neighbour): the surveyor or network operator can confirm.');
-  if (decision.route === 'apply-before' && (codes.has('demand-over-cutout') || codes.has('demand-over-limit') || codes.has('looped-supply'))) {
+  if (codes.has('demand-may-exceed')) list.push('Answer the remaining load questions, or the office to record a measured maximum demand.');
+  if (decision.route === 'apply-before' && decision.applyBeforeKnown) {
     list.push('The office to apply to the network operator before the install date.');
   }
-  if (decision.route === 'notify-after' && !decision.settled) list.push('Tell us about your big electrical appliances in the supply step.');
+  if (decision.route === 'notify-after' && !decision.settled) list.push('Answer every question about the big electrical appliances in the supply step.');
   return list;
 }

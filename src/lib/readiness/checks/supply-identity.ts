@@ -3,7 +3,7 @@ import { checkMpanCore, INDEPENDENT_NETWORK } from '../../validation/mpan';
 import type { CheckInput, CheckResult } from '../types';
 
 const SOURCE =
-  'MRA/Elexon MPAN definition, as described in the Wikipedia article "Meter Point Administration Number" (check digit: weights 3, 5, 7, 13, 17, 19, 23, 29, 31, 37, 41, 43; sum mod 11 mod 10)';
+  "The market operator's MPAN definition (Master Registration Agreement): check digit weights 3, 5, 7, 13, 17, 19, 23, 29, 31, 37, 41, 43, sum mod 11 mod 10; distributor IDs 10–23 the GB regions; independent-network IDs 24–37 from memory, not seen in the published list";
 const TITLE = 'Your electricity supply number (MPAN)';
 
 /**
@@ -28,15 +28,27 @@ export function checkSupplyIdentity({ answers }: CheckInput): CheckResult {
       actions: ['Check the 13-digit MPAN core against an electricity bill and correct it.'],
     };
   }
+  const unlisted = checked.distributorStatus === 'unlisted';
   return {
     id: 'supply-identity',
-    light: 'green',
+    light: unlisted ? 'amber' : 'green',
     title: TITLE,
-    customerText: `Thank you — your supply number checks out. ${whereText(checked.region)}`,
-    staffText: `MPAN core ${checked.core} valid (check digit); distributor ID ${checked.distributorId}: ${checked.region}.`,
-    figures: { mpanCore: checked.core, valid: true, reason: null, distributorId: checked.distributorId, region: checked.region },
+    customerText: unlisted
+      ? 'Thank you — your supply number adds up, but it starts with a network number we do not recognise. The office will check it against your bill; nothing for you to do unless it was mistyped.'
+      : `Thank you — your supply number checks out. ${whereText(checked.region)}`,
+    staffText: unlisted
+      ? `MPAN core ${checked.core} passes the check digit, but distributor ID ${checked.distributorId} is not on the list of independent-network IDs (24–37, from memory): confirm against a bill or the market operator's list.`
+      : `MPAN core ${checked.core} valid (check digit); distributor ID ${checked.distributorId}: ${checked.region}.`,
+    figures: {
+      mpanCore: checked.core,
+      valid: true,
+      reason: unlisted ? 'unlisted-distributor' : null,
+      distributorId: checked.distributorId,
+      distributorStatus: checked.distributorStatus,
+      region: unlisted ? null : checked.region,
+    },
     source: SOURCE,
-    actions: [],
+    actions: unlisted ? ['Confirm the distributor ID (first two digits of the MPAN core) against a bill.'] : [],
   };
 }
 
