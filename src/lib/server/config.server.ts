@@ -35,6 +35,22 @@ export const config = {
   get uploadDir() {
     return env('UPLOAD_DIR', '.data/uploads');
   },
+  /** Where uploads are kept: `local` (UPLOAD_DIR) or `s3` (a bucket; UPLOAD_DIR then holds only scratch files). */
+  get storage() {
+    const driver = env('STORAGE_DRIVER', 'local');
+    if (driver !== 'local' && driver !== 's3') throw new Error(`STORAGE_DRIVER must be "local" or "s3", not "${driver}".`);
+    return {
+      driver,
+      s3: {
+        bucket: driver === 's3' ? env('S3_BUCKET') : (process.env.S3_BUCKET ?? ''),
+        region: env('S3_REGION', 'us-east-1'),
+        endpoint: process.env.S3_ENDPOINT || undefined,
+        accessKeyId: process.env.S3_ACCESS_KEY_ID || undefined,
+        secretAccessKey: process.env.S3_SECRET_ACCESS_KEY || undefined,
+        forcePathStyle: process.env.S3_FORCE_PATH_STYLE === 'true',
+      },
+    } as const;
+  },
   get isTest() {
     return process.env.GROUNDWORK_TEST === '1';
   },

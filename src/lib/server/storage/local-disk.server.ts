@@ -1,8 +1,8 @@
 // Server-only: the Storage interface on the local disk, one file per key under a root folder.
 import { createReadStream } from 'node:fs';
-import { copyFile, link, mkdir, rm, stat, unlink, writeFile } from 'node:fs/promises';
-import { dirname, join, resolve, sep } from 'node:path';
-import { assertSafeKey, type PutSource, type Storage, type StoredObject } from './storage';
+import { copyFile, link, mkdir, readdir, rm, stat, unlink, writeFile } from 'node:fs/promises';
+import { dirname, join, relative, resolve, sep } from 'node:path';
+import { assertSafeKey, type ListedObject, type PutSource, type Storage, type StoredObject } from './storage';
 
 export class LocalDiskStorage implements Storage {
   readonly root: string;
@@ -51,6 +51,23 @@ export class LocalDiskStorage implements Storage {
     } catch (err) {
       if (isMissing(err)) return false;
       throw err;
+    }
+  }
+
+  async *list(prefix = ''): AsyncIterable<ListedObject> {
+    let entries: string[];
+    try {
+      entries = await readdir(this.root, { recursive: true });
+    } catch (err) {
+      if (isMissing(err)) return;
+      throw err;
+    }
+    for (const entry of entries) {
+      const key = relative(this.root, join(this.root, entry)).split(sep).join('/');
+      // Dot-folders (the uploads' scratch folder) hold work in progress, not stored objects.
+      if (!key.startsWith(prefix) || key.split('/').some((part) => part.startsWith('.'))) continue;
+      const info = await stat(join(this.root, entry)).catch(() => null);
+      if (info?.isFile()) yield { key, size: info.size, modifiedAt: info.mtime };
     }
   }
 }

@@ -8,6 +8,13 @@ export interface StoredObject {
   size: number;
 }
 
+/** One stored object as a listing reports it. */
+export interface ListedObject {
+  key: string;
+  size: number;
+  modifiedAt: Date;
+}
+
 /** What `put` stores: a finished file on local disk (consumed: moved, not copied) or bytes. */
 export type PutSource = { file: string } | Buffer;
 
@@ -19,6 +26,8 @@ export interface Storage {
   /** Removes an object; removing one that is not there is not an error. */
   delete(key: string): Promise<void>;
   exists(key: string): Promise<boolean>;
+  /** Every stored object whose key starts with prefix (all when omitted), in no set order. */
+  list(prefix?: string): AsyncIterable<ListedObject>;
 }
 
 // Keys are made by the app (ids, never user input), but refuse anything path-like regardless.
