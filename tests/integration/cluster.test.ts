@@ -174,7 +174,7 @@ describe('two app nodes behind one load balancer', () => {
     const moved = await onA.send('POST', `/api/cases/${c.id}/stage`, { to: 'in_review' });
     expect(moved.status).toBe(200);
     expect((await onA.at(nodeB.url).json(`/api/cases/${c.id}`)).body.stage).toBe('in_review');
-    const queue = await onA.at(nodeB.url).json(`/api/cases?stage=in_review&q=${encodeURIComponent(customer.name)}`);
+    const queue = await onA.at(nodeB.url).json(`/api/cases?stage=in_review&q=${encodeURIComponent(customer.name ?? "")}`);
     expect(queue.body.items.map((i: { id: string }) => i.id)).toContain(c.id);
   });
 
