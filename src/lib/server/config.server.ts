@@ -11,6 +11,14 @@ export const config = {
   get databaseUrl() {
     return env('DATABASE_URL');
   },
+  /** Connections in this process's pool (default 10). */
+  get databasePoolSize() {
+    return Number(env('DATABASE_POOL_SIZE', '10'));
+  },
+  /** false behind a transaction-mode connection pooler: postgres.js then sends no named prepared statements. */
+  get databasePrepare() {
+    return env('DATABASE_PREPARE', 'true') !== 'false';
+  },
   get authSecret() {
     return env('AUTH_SECRET');
   },

@@ -12,7 +12,9 @@ let instance: Db | undefined;
 /** The Drizzle database, connected on first use. */
 export function db(): Db {
   if (!instance) {
-    client = postgres(config.databaseUrl, { max: 10, onnotice: () => {} });
+    // Behind a transaction-mode pooler (PgBouncer and the like) each transaction may land on a
+    // different server connection, so named prepared statements must be off (docs/deploy.md).
+    client = postgres(config.databaseUrl, { max: config.databasePoolSize, prepare: config.databasePrepare, onnotice: () => {} });
     instance = drizzle(client, { schema });
   }
   return instance;

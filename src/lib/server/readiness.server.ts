@@ -37,7 +37,7 @@ export async function computeReadiness(
   conn: Conn = db(),
   known?: ReadinessSettings,
 ): Promise<ReadinessResult> {
-  const [summaries, settings, findings] = await Promise.all([uploadSummaries(row.id, conn), known ?? readinessSettings(), siteFindings(row.id, conn)]);
+  const [summaries, settings, findings] = await Promise.all([uploadSummaries(row.id, conn), known ?? readinessSettings(conn), siteFindings(row.id, conn)]);
   const answers = withSiteFindings(row.checklist as ChecklistAnswers, findings);
   const result = runChecks({ answers, uploads: summaries, settings, today: todayInGb() });
   return { ...result, checks: markConfirmedOnSite(result.checks, findings) };
