@@ -67,10 +67,12 @@ try {
   });
   runTsx('seeds/run.ts', { ...env, UPLOAD_DIR: join(dataDir, 'scratch-seed'), SEED_ONLY_IF_EMPTY: '1' });
   // One build, two processes: the nodes differ only in their port and their scratch folder.
-  const entry = build('dist', env);
+  const built = build('dist', env);
+  // build() answers the server entry's path, or the variables (APP_ENTRY, …) that point at it.
+  Object.assign(env, typeof built === 'string' ? { APP_ENTRY: built } : built);
   const nodes = nodePorts.map((port, i) => ({ name: `node-${'ab'[i]}`, port }));
   for (const n of nodes) {
-    startChild(n.name, 'node', [entry], { env: { ...env, PORT: String(n.port), UPLOAD_DIR: join(dataDir, `scratch-${n.name}`) }, quiet: true });
+    startChild(n.name, 'node', [env.APP_ENTRY], { env: { ...env, PORT: String(n.port), UPLOAD_DIR: join(dataDir, `scratch-${n.name}`) }, quiet: true });
   }
   startChild('worker', join(root, 'node_modules', '.bin', 'tsx'), ['scripts/worker.ts'], { env: { ...env, UPLOAD_DIR: join(dataDir, 'scratch-worker') }, quiet: true });
   await Promise.all(nodes.map((n) => waitForHttp(`http://127.0.0.1:${n.port}/api/health`)));
