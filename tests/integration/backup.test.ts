@@ -11,6 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import postgres from 'postgres';
 import { CreateBucketCommand, S3Client } from '@aws-sdk/client-s3';
 import { sql as original } from '../helpers/db';
+import { LocalDiskStorage } from '../../src/lib/server/storage/local-disk.server';
 import { S3Storage } from '../../src/lib/server/storage/s3.server';
 
 const run = promisify(execFile);
@@ -103,10 +104,19 @@ describe('backup and restore', () => {
   });
 
   it('every upload the database knows is in the new bucket with the checksum recorded when it arrived', async () => {
-    const uploads = await original<{ storage_key: string; thumb_key: string | null; sha256: string; size_bytes: number }[]>`select storage_key, thumb_key, sha256, size_bytes from uploads`;
-    expect(uploads.length).toBeGreaterThan(0);
+    const uploads = await original<{ storage_key: string; thumb_key: string | null; sha256: string; size_bytes: number; demo: boolean }[]>`
+      select p.storage_key, p.thumb_key, p.sha256, p.size_bytes, u.email !~ '^customer-' as demo
+      from uploads p join cases c on c.id = p.case_id join users u on u.id = c.customer_id`;
+    // Other test files leave rows whose file was never stored (failure cases): only files that
+    // were in the store can come back. Every demo upload (the seed's named customers, not the
+    // factories' customer-… ones) must be among them.
+    const source = new LocalDiskStorage(process.env.UPLOAD_DIR!);
+    const stored = [];
+    for (const u of uploads) if (await source.exists(u.storage_key)) stored.push(u);
+    expect(uploads.filter((u) => u.demo).length).toBeGreaterThan(0);
+    expect(stored.filter((u) => u.demo)).toEqual(uploads.filter((u) => u.demo));
     const bucket = new S3Storage({ ...s3, ...s3.credentials, bucket: target.bucket });
-    for (const u of uploads) {
+    for (const u of stored) {
       const got = await bucket.get(u.storage_key);
       expect(got, u.storage_key).not.toBeNull();
       const hash = createHash('sha256');
