@@ -7,7 +7,7 @@ import { db, schema, sql } from '../helpers/db';
 import { messagesTo } from '../helpers/mail';
 import { newStaff } from '../helpers/people';
 import { createCase, createUser } from '../../seeds/factories';
-import { RECOMPUTE_QUEUE, SEND_QUEUE, SWEEP_QUEUE, startWorkerBoss } from '../../src/lib/server/jobs.server';
+import { RECOMPUTE_QUEUE, SEND_QUEUE, SWEEP_QUEUE, ensureQueues, startWorkerBoss } from '../../src/lib/server/jobs.server';
 import { sendReminder, sweepReminders } from '../../src/lib/server/reminders.server';
 
 const noonGb = () => {
@@ -35,6 +35,11 @@ describe('jobs with several workers', () => {
     const boss = await startWorkerBoss();
     bosses.push(boss);
     for (const name of [SWEEP_QUEUE, SEND_QUEUE, RECOMPUTE_QUEUE]) expect((await boss.getQueue(name))?.policy).toBe('stately');
+    // A queue an older release created with pg-boss's default policy is brought up to date.
+    await boss.updateQueue(SWEEP_QUEUE, { name: SWEEP_QUEUE, policy: 'standard' });
+    expect((await boss.getQueue(SWEEP_QUEUE))?.policy).toBe('standard');
+    await ensureQueues(boss);
+    expect((await boss.getQueue(SWEEP_QUEUE))?.policy).toBe('stately');
   });
 
   it('two workers sweeping at the same moment send each due reminder once', async () => {
