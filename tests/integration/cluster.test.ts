@@ -163,6 +163,7 @@ describe('two app nodes behind one load balancer', () => {
     }
     const onB = await new Client(nodeB.url).authPost('/api/auth/callback/credentials', { email: user.email, password: 'wrong-5', callbackUrl: '/home' });
     expect(onB.status).toBe(429);
+    expect(onB.body.error.code).toBe('rate_limited');
   });
 
   it('a stage move on node A is seen by node B', async () => {
@@ -183,6 +184,13 @@ describe('two app nodes behind one load balancer', () => {
     const customer = await createUser(db, { role: 'customer' });
     const c = await createCase(db, { customerId: customer.id });
     const viaLb = await signInWithPassword(admin.email, TEST_PASSWORD, lbUrl);
+    // Both nodes in rotation before the traffic starts (HAProxy counts two good checks).
+    const seen = new Set<string>();
+    for (let i = 0; i < 100 && seen.size < 2; i++) {
+      seen.add((await fetch(`${lbUrl}/api/health`)).headers.get('x-groundwork-node') ?? '?');
+      if (seen.size < 2) await new Promise((r) => setTimeout(r, 50));
+    }
+    expect([...seen].sort()).toEqual(['node-a', 'node-b']);
     const servedBy: string[] = [];
     const acknowledged: string[] = [];
 
