@@ -2,13 +2,15 @@
 // `npm start`: everything from a fresh clone to a running Groundwork on http://127.0.0.1:4321.
 import { join } from 'node:path';
 import {
-  build, ensureNodeModules, localSecret, log, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp,
+  build, ensureNodeModules, fakeServiceEnv, localSecret, log, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp,
 } from './lib/stack.mjs';
 
 const port = Number(process.env.PORT ?? 4321);
 const pgPort = Number(process.env.PGPORT ?? 54329);
 const smtpPort = Number(process.env.FAKE_SMTP_PORT ?? 1025);
 const mailHttpPort = Number(process.env.FAKE_MAIL_HTTP_PORT ?? 1080);
+const smsPort = Number(process.env.FAKE_SMS_PORT ?? 1090);
+const vehiclePort = Number(process.env.FAKE_VEHICLE_PORT ?? 1095);
 const demoPassword = process.env.DEMO_PASSWORD ?? 'groundwork-demo';
 
 ensureNodeModules();
@@ -38,7 +40,13 @@ process.on('SIGTERM', () => shutdown(0));
 try {
   await migrate(db.url);
   const appUrl = process.env.APP_URL ?? `http://127.0.0.1:${port}`;
+  // Each hosted service's fake runs unless the real service's variables are set.
+  const fakes = fakeServiceEnv({ appUrl, smsPort, vehiclePort });
+  const realSms = Boolean(process.env.VONAGE_API_KEY);
+  const realVehicles = Boolean(process.env.VEHICLE_ENQUIRY_API_KEY);
   const env = {
+    ...(realSms ? {} : Object.fromEntries(Object.entries(fakes.app).filter(([k]) => k.startsWith('VONAGE_') || k === 'SMS_FROM'))),
+    ...(realVehicles ? {} : Object.fromEntries(Object.entries(fakes.app).filter(([k]) => k.startsWith('VEHICLE_')))),
     DATABASE_URL: db.url,
     AUTH_SECRET: process.env.AUTH_SECRET ?? localSecret('auth-secret'),
     AUTH_TRUST_HOST: 'true',
@@ -56,6 +64,8 @@ try {
       env: { FAKE_SMTP_PORT: String(smtpPort), FAKE_MAIL_HTTP_PORT: String(mailHttpPort) },
     });
   }
+  if (!realSms) startChild('fake sms', 'node', ['fake-services/sms-server.mjs'], { env: fakes.sms });
+  if (!realVehicles) startChild('fake vehicles', 'node', ['fake-services/vehicle-enquiry-server.mjs'], { env: fakes.vehicles });
   const entry = build('dist', env);
   startChild('app', 'node', [entry], { env, quiet: true });
   startChild('worker', join(root, 'node_modules', '.bin', 'tsx'), ['scripts/worker.ts'], { env, quiet: true });
@@ -63,6 +73,8 @@ try {
   console.log(`
   Groundwork is running at ${appUrl}
   Local test inbox (every e-mail the app sends): http://127.0.0.1:${mailHttpPort}
+  Texts sent (fake SMS service, JSON): http://127.0.0.1:${smsPort}/api/sms
+  Vehicle look-up fake: plates GW29 EVA, GW29 PET, GW29 PHV… (http://127.0.0.1:${vehiclePort}/api/fleet)
 
   Demo sign-ins
     Office admin   admin@example.com      password: ${demoPassword}

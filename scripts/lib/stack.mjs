@@ -147,3 +147,32 @@ export function build(outDir = 'dist', env = {}) {
 export function runTsx(script, env) {
   execFileSync(join(root, 'node_modules', '.bin', 'tsx'), [script], { cwd: root, stdio: 'inherit', env: { ...process.env, ...env } });
 }
+
+/**
+ * The app's variables for the local SMS and vehicle enquiry fakes, and the fakes' own. The SMS
+ * provider's SDK is pointed at the fake through VONAGE_REST_HOST; the secrets are the fakes'.
+ */
+export function fakeServiceEnv({ appUrl, smsPort, vehiclePort }) {
+  const sms = { key: 'fake-key', secret: 'fake-secret', signature: 'fake-signature-secret', method: 'sha256' };
+  return {
+    app: {
+      VONAGE_API_KEY: sms.key,
+      VONAGE_API_SECRET: sms.secret,
+      VONAGE_SIGNATURE_SECRET: sms.signature,
+      VONAGE_SIGNATURE_METHOD: sms.method,
+      VONAGE_REST_HOST: `http://127.0.0.1:${smsPort}`,
+      SMS_FROM: '447700900000',
+      VEHICLE_ENQUIRY_API_KEY: 'fake-vehicle-key',
+      VEHICLE_ENQUIRY_URL: `http://127.0.0.1:${vehiclePort}/vehicle-enquiry/v1/vehicles`,
+    },
+    sms: {
+      FAKE_SMS_PORT: String(smsPort),
+      FAKE_SMS_API_KEY: sms.key,
+      FAKE_SMS_API_SECRET: sms.secret,
+      FAKE_SMS_SIGNATURE_SECRET: sms.signature,
+      FAKE_SMS_SIGNATURE_METHOD: sms.method,
+      FAKE_SMS_INBOUND_URL: `${appUrl}/api/sms/inbound`,
+    },
+    vehicles: { FAKE_VEHICLE_PORT: String(vehiclePort), FAKE_VEHICLE_API_KEY: 'fake-vehicle-key' },
+  };
+}

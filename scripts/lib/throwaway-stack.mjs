@@ -3,7 +3,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { build, freePort, migrate, root, runTsx, startChild, startDatabase, startS3Fake, stopChildren, waitForHttp } from './stack.mjs';
+import { build, fakeServiceEnv, freePort, migrate, root, runTsx, startChild, startDatabase, startS3Fake, stopChildren, waitForHttp } from './stack.mjs';
 
 export async function startThrowawayStack({ name = 'test', seed = true, worker = true } = {}) {
   const scratch = mkdtempSync(join(tmpdir(), `groundwork-${name}-`));
@@ -17,7 +17,7 @@ export async function startThrowawayStack({ name = 'test', seed = true, worker =
     if (db?.dataDir && !db.dataDir.startsWith(scratch)) rmSync(db.dataDir, { recursive: true, force: true });
   };
   try {
-    const [pgPort, appPort, smtpPort, mailHttpPort, s3Port] = [await freePort(), await freePort(), await freePort(), await freePort(), await freePort()];
+    const [pgPort, appPort, smtpPort, mailHttpPort, smsPort, vehiclePort, s3Port] = [await freePort(), await freePort(), await freePort(), await freePort(), await freePort(), await freePort(), await freePort()];
     db = await startDatabase({
       dataDir: join(scratch, 'pg'),
       fallbackName: `groundwork-${name}-pg-${process.pid}`,
@@ -28,7 +28,11 @@ export async function startThrowawayStack({ name = 'test', seed = true, worker =
     });
     await migrate(db.url);
     const appUrl = `http://127.0.0.1:${appPort}`;
+    const fakes = fakeServiceEnv({ appUrl, smsPort, vehiclePort });
     const env = {
+      ...fakes.app,
+      SMS_API_URL: `http://127.0.0.1:${smsPort}`,
+      VEHICLE_API_URL: `http://127.0.0.1:${vehiclePort}`,
       DATABASE_URL: db.url,
       AUTH_SECRET: `groundwork-${name}-secret-not-for-production`,
       AUTH_TRUST_HOST: 'true',
@@ -57,6 +61,8 @@ export async function startThrowawayStack({ name = 'test', seed = true, worker =
       env: { FAKE_SMTP_PORT: String(smtpPort), FAKE_MAIL_HTTP_PORT: String(mailHttpPort) },
       quiet: true,
     });
+    startChild('fake sms', 'node', ['fake-services/sms-server.mjs'], { env: fakes.sms, quiet: true });
+    startChild('fake vehicles', 'node', ['fake-services/vehicle-enquiry-server.mjs'], { env: fakes.vehicles, quiet: true });
     const entry = build(outDir, env);
     env.APP_ENTRY = entry;
     startChild('app', 'node', [entry], { env, quiet: true });

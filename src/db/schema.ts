@@ -260,3 +260,90 @@ export const surveyOutcomes = pgTable('survey_outcomes', {
   surveyorId: text('surveyor_id').references(() => users.id, { onDelete: 'set null' }),
   recordedAt: timestamp('recorded_at', { withTimezone: true }).notNull().defaultNow(),
 });
+
+/**
+ * A customer's yes to text messages: the mobile it covers and when they said so. One row per
+ * customer; a withdrawal (in the checklist, or a STOP reply) keeps the row with withdrawn_at set,
+ * and each change is also in the audit trail.
+ */
+export const textConsents = pgTable(
+  'text_consents',
+  {
+    userId: text('user_id')
+      .primaryKey()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    // E.164, e.g. +447700900123.
+    mobile: text('mobile').notNull(),
+    consentedAt: timestamp('consented_at', { withTimezone: true }).notNull(),
+    withdrawnAt: timestamp('withdrawn_at', { withTimezone: true }),
+    // 'checklist' (the customer unticked it) or 'stop' (they replied STOP).
+    withdrawnVia: text('withdrawn_via'),
+  },
+  (t) => [index('text_consents_mobile_idx').on(t.mobile)],
+);
+
+/**
+ * Every text message sent about a case, and every reply received: the case's message history.
+ * `text` is stored with any sign-in link replaced by a placeholder, never the working link.
+ */
+export const textLog = pgTable(
+  'text_log',
+  {
+    id: uuid('id').primaryKey().defaultRandom(),
+    caseId: uuid('case_id').references(() => cases.id, { onDelete: 'cascade' }),
+    userId: text('user_id').references(() => users.id, { onDelete: 'set null' }),
+    direction: text('direction').notNull().default('outbound'),
+    kind: text('kind').notNull(),
+    mobile: text('mobile').notNull(),
+    text: text('text').notNull(),
+    // The provider's message id, which its delivery receipts quote.
+    providerId: text('provider_id'),
+    // queued (logged, not yet accepted), submitted, delivered, failed, rejected, expired, received
+    status: text('status').notNull().default('queued'),
+    statusDetail: text('status_detail'),
+    statusAt: timestamp('status_at', { withTimezone: true }),
+    sentById: text('sent_by_id').references(() => users.id, { onDelete: 'set null' }),
+    // For scheduled reminders: the slot key makes a retried job unable to text twice.
+    dedupeKey: text('dedupe_key').unique(),
+    createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index('text_log_case_idx').on(t.caseId, t.createdAt), index('text_log_provider_idx').on(t.providerId)],
+);
+
+/** Vehicle look-ups by registration, cached so a plate typed twice is asked about once. */
+export const vehicleLookupCache = pgTable('vehicle_lookup_cache', {
+  // Without spaces, upper case: the form the enquiry service takes.
+  registration: text('registration').primaryKey(),
+  found: boolean('found').notNull(),
+  make: text('make'),
+  colour: text('colour'),
+  fuelType: text('fuel_type'),
+  yearOfManufacture: integer('year_of_manufacture'),
+  fetchedAt: timestamp('fetched_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** What the last look-up on a case found, so the office can tell a looked-up make from a typed one. */
+export const caseVehicleLookups = pgTable('case_vehicle_lookups', {
+  caseId: uuid('case_id')
+    .primaryKey()
+    .references(() => cases.id, { onDelete: 'cascade' }),
+  registration: text('registration').notNull(),
+  make: text('make'),
+  colour: text('colour'),
+  fuelType: text('fuel_type'),
+  yearOfManufacture: integer('year_of_manufacture'),
+  lookedUpAt: timestamp('looked_up_at', { withTimezone: true }).notNull().defaultNow(),
+});
+
+/** Per-customer look-up counts in fixed windows: the limit holds across app processes. */
+export const lookupCounters = pgTable(
+  'lookup_counters',
+  {
+    userId: text('user_id')
+      .notNull()
+      .references(() => users.id, { onDelete: 'cascade' }),
+    windowStart: timestamp('window_start', { withTimezone: true }).notNull(),
+    count: integer('count').notNull().default(0),
+  },
+  (t) => [primaryKey({ columns: [t.userId, t.windowStart] })],
+);

@@ -352,7 +352,7 @@ describe('the office, in Chromium', () => {
     await admin.page.getByRole('button', { name: 'Add note' }).click();
     await expect.poll(() => admin.page.getByTestId('notes').textContent(), waitLong).toContain('side gate');
     await expect.poll(() => admin.page.getByTestId('audit').textContent(), waitLong).toContain('rejected Main fuse (cut-out)');
-    await expect.poll(() => admin.page.getByTestId('emails').textContent(), waitLong).toContain('Survey booked');
+    await expect.poll(() => admin.page.getByTestId('messages').textContent(), waitLong).toContain('Survey booked');
     await expect(admin.page.locator('[data-testid="checks"] > li').count()).resolves.toBe(9);
     await snapBoth(admin.page, 'office-case');
 

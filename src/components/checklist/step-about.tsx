@@ -4,6 +4,10 @@ import { checkPostcode } from '../../lib/validation/postcode';
 import { checkUkPhone } from '../../lib/validation/phone';
 import { ChoiceField, TextField, useFieldValue } from './fields';
 import { Note } from './notes';
+import { lazy, Suspense } from 'react';
+
+// Loaded only when the About step shows, and it renders nothing when texts are off.
+const TextOptIn = lazy(() => import('./text-opt-in').then((m) => ({ default: m.TextOptIn })));
 
 /** A valid UK number shown the national way; anything else left as typed for the error to explain. */
 export function tidyPhone(value: string): string {
@@ -40,6 +44,9 @@ export function AboutStep({ caseId }: { caseId: string }) {
         normalise={tidyPhone}
         help="A mobile is best, so the surveyor can reach you on the day."
       />
+      <Suspense fallback={null}>
+        <TextOptIn caseId={caseId} />
+      </Suspense>
       <fieldset className="space-y-4 rounded-lg border border-ground-100 p-4">
         <legend className="float-left w-full text-lg font-bold text-ground-900">The home where the charge point will go</legend>
         <p className="field-help clear-both !mt-1 pt-1">Give this address even if your post goes somewhere else.</p>

@@ -9,6 +9,7 @@ import { useChecklist } from './checklist-context';
 import { ChoiceField, TextField, useFieldValue } from './fields';
 import { MoreHelp } from './notes';
 import { ChargePortPicture } from './charge-port-picture';
+import { useVehicleLookup, VehicleLookupNote } from './vehicle-lookup';
 
 /** A valid mark written the usual way ("AB12 CDE"); anything else left as typed. */
 export function tidyRegistration(value: string): string {
@@ -42,15 +43,10 @@ export function VehicleStep({ caseId }: { caseId: string }) {
     const values = form.getValues();
     return Boolean(values.vehicle?.vin) && !values.vehicle?.registration;
   });
+  const lookup = useVehicleLookup(caseId, registration, notRegistered);
 
   return (
     <div className="space-y-6">
-      <div className="grid gap-6 sm:grid-cols-2">
-        <TextField path="vehicle.make" help="For example, the maker’s name on the badge." />
-        <TextField path="vehicle.model" help="As on your order or the car’s papers." />
-      </div>
-      <ChoiceField path="vehicle.condition" columns={2} />
-
       <div className="space-y-4 rounded-lg border border-ground-100 p-4">
         <p className="text-lg font-bold text-ground-900">Which car it is</p>
         <label className="flex min-h-[48px] cursor-pointer items-center gap-3 rounded-lg border-2 border-ground-100 bg-white p-3 has-[:checked]:border-ground-600 has-[:checked]:bg-ground-50 has-[:focus-visible]:ring-4 has-[:focus-visible]:ring-clay-300">
@@ -81,11 +77,18 @@ export function VehicleStep({ caseId }: { caseId: string }) {
             spellCheck={false}
             size="short"
             normalise={tidyRegistration}
-            warning={vehicleWarning('registration', registration)}
+            // A plate the vehicle records hold has been issued, whatever its age identifier suggests.
+            warning={lookup?.outcome.kind === 'found' ? null : vehicleWarning('registration', registration)}
             help="The number plate, for example AB12 CDE."
+            confirmation={lookup && lookup.outcome.kind !== 'off' ? <VehicleLookupNote state={lookup} /> : null}
           />
         )}
       </div>
+      <div className="grid gap-6 sm:grid-cols-2">
+        <TextField path="vehicle.make" help="For example, the maker’s name on the badge." />
+        <TextField path="vehicle.model" help="As on your order or the car’s papers." />
+      </div>
+      <ChoiceField path="vehicle.condition" columns={2} />
 
       <TextField
         path="vehicle.deliveryDate"

@@ -3,8 +3,11 @@ import { sectionIds, type Checklist, type SectionId, type SectionProgress } from
 import { summaryRows } from '../checklist/progress';
 import { CheckIcon, WarningIcon } from '../icons';
 import { staffLabel } from './answer-labels';
+import type { VehicleLookupInfo } from './case-types';
+import { formatDayTime } from './format';
+import { fuelFit, fuelWords } from '../../lib/vehicle-fuel';
 
-type Props = { checklist: Checklist; progress: SectionProgress[]; warnings: Record<string, string> };
+type Props = { checklist: Checklist; progress: SectionProgress[]; warnings: Record<string, string>; vehicleLookup?: VehicleLookupInfo };
 
 function planSummary(checklist: Checklist): string | null {
   const plan = checklist.charger?.plan as { bays?: unknown[] } | null | undefined;
@@ -13,7 +16,25 @@ function planSummary(checklist: Checklist): string | null {
   return `Drawn (${bays} ${bays === 1 ? 'bay' : 'bays'}) — see the cable reach check`;
 }
 
-function Section({ id, title, checklist, progress, warnings }: { id: SectionId; title: string; checklist: Checklist; progress?: SectionProgress; warnings: Record<string, string> }) {
+/**
+ * Where the vehicle's make came from: the registration look-up (when the saved make and plate
+ * are the ones it found) or the customer's own typing, with what the records said beside it.
+ */
+export function vehicleSourceWords(checklist: Checklist, lookup: VehicleLookupInfo | undefined): string | null {
+  const make = checklist.vehicle?.make ?? null;
+  const registration = checklist.vehicle?.registration ?? null;
+  if (!make) return null;
+  if (!lookup || !registration || lookup.registration !== registration) return 'Make typed by the customer (no registration look-up).';
+  const record = [lookup.colour?.toLowerCase(), lookup.makeWords, lookup.yearOfManufacture, lookup.fuelType ? fuelWords(lookup.fuelType) : null].filter(Boolean).join(', ');
+  const fuel = fuelFit(lookup.fuelType) === 'electric' ? '' : ' The records do not show a fully electric car.';
+  const when = formatDayTime(lookup.lookedUpAt);
+  if (lookup.makeWords && lookup.makeWords.toLowerCase() === make.trim().toLowerCase()) {
+    return `Make from the vehicle records look-up of ${registration} on ${when} (${record}).${fuel}`;
+  }
+  return `Make typed by the customer; the vehicle records for ${registration} show ${record} (looked up ${when}).${fuel}`;
+}
+
+function Section({ id, title, checklist, progress, warnings, note }: { id: SectionId; title: string; checklist: Checklist; progress?: SectionProgress; warnings: Record<string, string>; note?: string | null }) {
   const rows = summaryRows(id, checklist);
   const answered = rows.filter((r) => r.value !== null);
   // Unanswered fields are listed on one line, so a half-filled case stays short to read.
@@ -52,6 +73,7 @@ function Section({ id, title, checklist, progress, warnings }: { id: SectionId; 
           )}
         </dl>
       )}
+      {note && <p className="mt-1 text-sm text-ground-800" data-testid="vehicle-source">{note}</p>}
       {gaps.length > 0 && (
         <p className="mt-1 text-sm"><span className="font-semibold text-attention">Not answered yet:</span> {gaps.join(', ')}</p>
       )}
@@ -60,13 +82,13 @@ function Section({ id, title, checklist, progress, warnings }: { id: SectionId; 
   );
 }
 
-export function CaseAnswers({ checklist, progress, warnings }: Props) {
+export function CaseAnswers({ checklist, progress, warnings, vehicleLookup }: Props) {
   return (
     <section aria-labelledby="answers-heading" className="card" id="answers">
       <h2 id="answers-heading" className="text-lg font-bold text-ground-900">Answers</h2>
       <div className="divide-y divide-ground-100">
         {sectionIds.map(([id, title]) => (
-          <Section key={id} id={id} title={title} checklist={checklist} progress={progress.find((p) => p.id === id)} warnings={warnings} />
+          <Section key={id} id={id} title={title} checklist={checklist} progress={progress.find((p) => p.id === id)} warnings={warnings} note={id === 'vehicle' ? vehicleSourceWords(checklist, vehicleLookup) : null} />
         ))}
       </div>
     </section>

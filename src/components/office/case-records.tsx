@@ -4,7 +4,8 @@ import type { UploadKind } from '../../lib/schemas/uploads';
 import { SpinnerIcon } from '../icons';
 import { apiCall } from './api';
 import { actorWords, describeAudit } from './audit-words';
-import type { AuditItem, EmailItem, NoteItem } from './case-types';
+import type { AuditItem, MessageItem, NoteItem } from './case-types';
+import { checkUkPhone } from '../../lib/validation/phone';
 import { formatDayTime } from './format';
 
 /** Loads `{ items }` from a case's sub-resource, again whenever refreshKey changes. */
@@ -91,38 +92,68 @@ export function NotesPanel({ caseId, refreshKey, onAdded }: { caseId: string; re
   );
 }
 
-const emailKindWords: Record<string, string> = {
+const messageKindWords: Record<string, string> = {
   invitation: 'Invitation',
   chase: 'Chase',
   reminder: 'Automatic reminder',
   rejection: 'Upload rejected',
   survey_booked: 'Survey booked',
+  stop: 'Reply: STOP',
+  reply: 'Reply',
 };
 
-export function EmailsPanel({ caseId, refreshKey }: { caseId: string; refreshKey: number }) {
-  const { items, error } = useItems<EmailItem>(`/api/cases/${caseId}/emails`, refreshKey);
+// The provider's delivery states in the office's words; an e-mail is logged once it has gone.
+const statusWords: Record<string, { text: string; tone: string }> = {
+  sent: { text: 'Sent', tone: 'text-ground-700' },
+  queued: { text: 'Sending', tone: 'text-ground-700' },
+  submitted: { text: 'With the network', tone: 'text-ground-700' },
+  delivered: { text: 'Delivered', tone: 'text-clear' },
+  failed: { text: 'Not delivered', tone: 'text-blocked' },
+  rejected: { text: 'Refused by the network', tone: 'text-blocked' },
+  expired: { text: 'Not delivered (phone unreachable)', tone: 'text-blocked' },
+  received: { text: 'Received', tone: 'text-ground-700' },
+};
+
+function displayNumber(e164: string): string {
+  const phone = checkUkPhone(e164);
+  return phone.ok ? phone.display : e164;
+}
+
+/** E-mails and texts about the case, newest first, each with its status. */
+export function MessagesPanel({ caseId, refreshKey }: { caseId: string; refreshKey: number }) {
+  const { items, error } = useItems<MessageItem>(`/api/cases/${caseId}/messages`, refreshKey);
   return (
-    <section aria-labelledby="emails-heading" className="card" id="emails">
-      <h2 id="emails-heading" className="text-lg font-bold text-ground-900">E-mails sent</h2>
+    <section aria-labelledby="messages-heading" className="card" id="messages">
+      <h2 id="messages-heading" className="text-lg font-bold text-ground-900">Messages</h2>
+      <p className="text-xs text-ground-600">E-mails and texts to and from the customer.</p>
       {error && <p className="field-error">{error}</p>}
-      {!items && !error && <Loading what="e-mails" />}
-      {items && items.length === 0 && <p className="text-sm text-ground-700">No e-mails yet.</p>}
+      {!items && !error && <Loading what="messages" />}
+      {items && items.length === 0 && <p className="text-sm text-ground-700">No messages yet.</p>}
       {items && items.length > 0 && (
-        <ul className="mt-2 divide-y divide-ground-100" data-testid="emails">
-          {items.map((m) => (
-            <li key={m.id} className="py-2">
-              <details>
-                <summary className="cursor-pointer text-sm">
-                  <span className="mr-2 rounded bg-ground-100 px-1.5 py-0.5 text-xs font-semibold text-ground-800">{emailKindWords[m.kind] ?? m.kind}</span>
-                  <span className="font-semibold text-ink">{m.subject}</span>
-                  <span className="block text-xs text-ground-600">
-                    To {m.toEmail} · {formatDayTime(m.createdAt)}{m.sentByName ? ` · by ${m.sentByName}` : ' · automatic'}
-                  </span>
-                </summary>
-                <pre className="mt-2 max-h-72 overflow-auto whitespace-pre-wrap rounded bg-paper p-2 font-sans text-xs text-ink">{m.text}</pre>
-              </details>
-            </li>
-          ))}
+        <ul className="mt-2 divide-y divide-ground-100" data-testid="messages">
+          {items.map((m) => {
+            const status = statusWords[m.status] ?? { text: m.status, tone: 'text-ground-700' };
+            const who = m.channel === 'email' ? m.to : displayNumber(m.to);
+            return (
+              <li key={`${m.channel}-${m.id}`} className="py-2" data-testid={`message-${m.channel}`}>
+                <details>
+                  <summary className="cursor-pointer text-sm">
+                    <span className="mr-1.5 rounded bg-clay-100 px-1.5 py-0.5 text-xs font-semibold text-clay-800">{m.channel === 'email' ? 'E-mail' : 'Text'}</span>
+                    <span className="mr-2 rounded bg-ground-100 px-1.5 py-0.5 text-xs font-semibold text-ground-800">{messageKindWords[m.kind] ?? m.kind}</span>
+                    <span className="font-semibold text-ink">{m.subject ?? (m.text.length > 70 ? `${m.text.slice(0, 70)}…` : m.text)}</span>
+                    <span className="block text-xs text-ground-600">
+                      {m.direction === 'inbound' ? `From ${who}` : `To ${who}`} · {formatDayTime(m.createdAt)}
+                      {m.direction === 'outbound' ? (m.sentByName ? ` · by ${m.sentByName}` : ' · automatic') : ''}
+                    </span>
+                    <span className={`block text-xs font-semibold ${status.tone}`} data-testid="message-status">
+                      {status.text}{m.statusDetail ? ` (${m.statusDetail})` : ''}{m.statusAt && m.status !== 'sent' ? ` · ${formatDayTime(m.statusAt)}` : ''}
+                    </span>
+                  </summary>
+                  <pre className="mt-2 max-h-72 overflow-auto whitespace-pre-wrap rounded bg-paper p-2 font-sans text-xs text-ink">{m.text}</pre>
+                </details>
+              </li>
+            );
+          })}
         </ul>
       )}
     </section>

@@ -29,7 +29,20 @@ export type CasePeople = {
   surveyor: { id: string; name: string | null } | null;
   invitedAt: string;
   lastChasedAt: string | null;
+  /** Text-message consent of the customer (texts may be switched off for the firm). */
+  texts: { enabled: boolean; consented: boolean; mobile: string | null; consentedAt: string | null; withdrawnAt: string | null };
 };
+
+/** The last registration look-up on the case (null when there was none). */
+export type VehicleLookupInfo = {
+  registration: string;
+  make: string | null;
+  makeWords: string | null;
+  colour: string | null;
+  fuelType: string | null;
+  yearOfManufacture: number | null;
+  lookedUpAt: string;
+} | null;
 
 export type StaffMember = { id: string; name: string | null; email: string };
 
@@ -46,4 +59,19 @@ export type AuditItem = {
   actorName: string | null;
   actorRole: string | null;
 };
-export type EmailItem = { id: string; kind: string; toEmail: string; subject: string; text: string; createdAt: string; sentByName: string | null };
+
+/** GET /api/cases/:id/messages: e-mails and texts together. */
+export type MessageItem = {
+  id: string;
+  channel: 'email' | 'text';
+  direction: 'outbound' | 'inbound';
+  kind: string;
+  to: string;
+  subject: string | null;
+  text: string;
+  status: string;
+  statusDetail: string | null;
+  statusAt: string | null;
+  createdAt: string;
+  sentByName: string | null;
+};

@@ -5,8 +5,8 @@ import type { UploadItem, UploadKind } from '../../lib/schemas/uploads';
 import { SendIcon, SpinnerIcon } from '../icons';
 import { apiCall } from './api';
 import { CaseAnswers } from './case-answers';
-import { AuditPanel, EmailsPanel, NotesPanel } from './case-records';
-import type { CasePeople, OfficeCaseView, Readiness, StaffMember } from './case-types';
+import { AuditPanel, MessagesPanel, NotesPanel } from './case-records';
+import type { CasePeople, OfficeCaseView, Readiness, StaffMember, VehicleLookupInfo } from './case-types';
 import { formatDay, formatDayTime, plural } from './format';
 import { LightBadge } from '../readiness/light-badge';
 import { ReadinessPanel } from './readiness-panel';
@@ -15,8 +15,17 @@ import { StagePill } from './stage-pill';
 import { UploadReview } from './upload-review';
 import { checkUkPhone } from '../../lib/validation/phone';
 
-type Props = { initial: OfficeCaseView; people: CasePeople; surveyors: StaffMember[] };
-type ChaseAnswer = { sent: boolean; items: string[] };
+type Props = { initial: OfficeCaseView; people: CasePeople; surveyors: StaffMember[]; vehicleLookup: VehicleLookupInfo };
+type ChaseAnswer = { sent: boolean; items: string[]; text?: { sent: boolean; reason?: string } };
+
+/** The customer's text consent in one line, with when they gave or withdrew it. */
+function textConsentWords(t: CasePeople['texts']): string {
+  const phone = t.mobile ? checkUkPhone(t.mobile) : null;
+  const number = phone?.ok ? phone.display : (t.mobile ?? '');
+  if (t.consented) return `Texts: agreed ${formatDayTime(t.consentedAt)}, to ${number}`;
+  if (t.withdrawnAt) return `Texts: stopped ${formatDayTime(t.withdrawnAt)}`;
+  return 'Texts: not agreed (e-mail only)';
+}
 
 function ChaseButton({ caseId, onSent }: { caseId: string; onSent(): void }) {
   const [busy, setBusy] = useState(false);
@@ -26,7 +35,8 @@ function ChaseButton({ caseId, onSent }: { caseId: string; onSent(): void }) {
     const r = await apiCall<ChaseAnswer>('POST', `/api/cases/${caseId}/chase`);
     setBusy(false);
     if (r.ok) {
-      setMessage({ ok: true, text: `Chase e-mail sent, listing ${plural(r.data.items.length, 'item')}:`, items: r.data.items });
+      const byText = r.data.text?.sent ? ' and a text' : '';
+      setMessage({ ok: true, text: `Chase e-mail${byText} sent, listing ${plural(r.data.items.length, 'item')}:`, items: r.data.items });
       onSent();
     } else setMessage({ ok: false, text: r.error.message, items: [] });
   }
@@ -45,7 +55,7 @@ function ChaseButton({ caseId, onSent }: { caseId: string; onSent(): void }) {
   );
 }
 
-export default function CaseWorkspace({ initial, people, surveyors }: Props) {
+export default function CaseWorkspace({ initial, people, surveyors, vehicleLookup }: Props) {
   const [view, setView] = useState(initial);
   const [readiness, setReadiness] = useState<Readiness>({ light: initial.readiness.light, gapCount: initial.readiness.gapCount, checks: initial.readiness.checks });
   const [surveyor, setSurveyor] = useState(people.surveyor);
@@ -90,6 +100,7 @@ export default function CaseWorkspace({ initial, people, surveyors }: Props) {
               <a href={`mailto:${people.customer.email}`} className="break-all">{people.customer.email}</a>
               {people.customer.phone && <> · <a href={`tel:${people.customer.phone}`}>{phone?.ok ? phone.display : people.customer.phone}</a></>}
             </p>
+            {people.texts.enabled && <p className="text-sm text-ground-700" data-testid="text-consent">{textConsentWords(people.texts)}</p>}
           </div>
           <dl className="grid grid-cols-[auto_auto] items-center gap-x-3 gap-y-1.5 text-sm">
             <dt className="text-ground-700">Stage</dt>
@@ -128,7 +139,7 @@ export default function CaseWorkspace({ initial, people, surveyors }: Props) {
           <a href="#answers">Answers</a>
           <a href="#uploads">Photos and documents</a>
           <a href="#notes">Notes</a>
-          <a href="#emails">E-mails</a>
+          <a href="#messages">Messages</a>
           <a href="#history">History</a>
           <span className="ml-auto text-xs text-ground-600">Last change {formatDayTime(view.updatedAt)}</span>
         </nav>
@@ -138,11 +149,11 @@ export default function CaseWorkspace({ initial, people, surveyors }: Props) {
         <div className="min-w-0 space-y-4">
           <ReadinessPanel checks={readiness.checks} />
           <UploadReview caseId={caseId} checklist={view.checklist} refreshKey={refreshKey} onChanged={refresh} />
-          <CaseAnswers checklist={view.checklist} progress={view.progress} warnings={view.warnings} />
+          <CaseAnswers checklist={view.checklist} progress={view.progress} warnings={view.warnings} vehicleLookup={vehicleLookup} />
         </div>
         <div className="min-w-0 space-y-4">
           <NotesPanel caseId={caseId} refreshKey={refreshKey} onAdded={refresh} />
-          <EmailsPanel caseId={caseId} refreshKey={refreshKey} />
+          <MessagesPanel caseId={caseId} refreshKey={refreshKey} />
           <AuditPanel caseId={caseId} refreshKey={refreshKey} uploadKindById={uploadKinds} staffNames={staffNames} />
         </div>
       </div>

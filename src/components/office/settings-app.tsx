@@ -35,8 +35,8 @@ const reminderFields: { key: keyof ReminderSettings; label: string; meaning: str
   { key: 'enabled', label: 'Send automatic reminders', meaning: 'E-mail customers whose case is still being filled in, listing what is missing.', unit: 'yes/no' },
   { key: 'everyDays', label: 'Remind every', meaning: 'Days between reminders, counted from the invitation or the last chase.', unit: 'days' },
   { key: 'maxReminders', label: 'At most', meaning: 'Reminders per case before they stop; the office can still chase by hand.', unit: 'reminders' },
-  { key: 'sendFromHour', label: 'Not before', meaning: 'Hour of the day (UK time) from which reminders may go out.', unit: 'o’clock' },
-  { key: 'sendUntilHour', label: 'Not after', meaning: 'Hour of the day (UK time) by which reminders stop for the day: never at night.', unit: 'o’clock' },
+  { key: 'sendFromHour', label: 'Not before', meaning: 'Hour of the day (UK time) from which reminders, and any texts with chases, may go out.', unit: 'o’clock' },
+  { key: 'sendUntilHour', label: 'Not after', meaning: 'Hour of the day (UK time) by which reminders and texts stop for the day: never at night.', unit: 'o’clock' },
 ];
 const reminderDefaults: ReminderSettings = reminderSettingsSchema.parse({});
 

@@ -1,7 +1,7 @@
 // Server-only: a case's notes, audit trail and e-mail history, for the case page.
 import { asc, desc, eq } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
-import { auditLog, caseNotes, emailLog, users } from '../../db/schema';
+import { auditLog, caseNotes, emailLog, textLog, users } from '../../db/schema';
 import { audit } from './audit.server';
 import { db } from './db.server';
 import type { SessionUser } from './users.server';
@@ -59,4 +59,54 @@ export async function listEmails(caseId: string) {
     .leftJoin(author, eq(author.id, emailLog.sentById))
     .where(eq(emailLog.caseId, caseId))
     .orderBy(desc(emailLog.createdAt));
+}
+
+/** One message in the case's history, e-mail or text, as the office reads it. */
+export type MessageItem = {
+  id: string;
+  channel: 'email' | 'text';
+  direction: 'outbound' | 'inbound';
+  kind: string;
+  to: string;
+  subject: string | null;
+  text: string;
+  status: string;
+  statusDetail: string | null;
+  statusAt: string | null;
+  createdAt: string;
+  sentByName: string | null;
+};
+
+/** E-mails and texts together, newest first. An e-mail is logged once sent, so its status is "sent". */
+export async function listMessages(caseId: string): Promise<MessageItem[]> {
+  const emails = await listEmails(caseId);
+  const texts = await db()
+    .select({
+      id: textLog.id,
+      direction: textLog.direction,
+      kind: textLog.kind,
+      mobile: textLog.mobile,
+      text: textLog.text,
+      status: textLog.status,
+      statusDetail: textLog.statusDetail,
+      statusAt: textLog.statusAt,
+      createdAt: textLog.createdAt,
+      sentByName: author.name,
+    })
+    .from(textLog)
+    .leftJoin(author, eq(author.id, textLog.sentById))
+    .where(eq(textLog.caseId, caseId))
+    .orderBy(desc(textLog.createdAt));
+  const items: MessageItem[] = [
+    ...emails.map((m) => ({
+      id: m.id, channel: 'email' as const, direction: 'outbound' as const, kind: m.kind, to: m.toEmail, subject: m.subject, text: m.text,
+      status: 'sent', statusDetail: null, statusAt: null, createdAt: m.createdAt.toISOString(), sentByName: m.sentByName,
+    })),
+    ...texts.map((t) => ({
+      id: t.id, channel: 'text' as const, direction: t.direction === 'inbound' ? ('inbound' as const) : ('outbound' as const), kind: t.kind, to: t.mobile,
+      subject: null, text: t.text, status: t.status, statusDetail: t.statusDetail, statusAt: t.statusAt?.toISOString() ?? null,
+      createdAt: t.createdAt.toISOString(), sentByName: t.sentByName,
+    })),
+  ];
+  return items.sort((a, b) => b.createdAt.localeCompare(a.createdAt));
 }

@@ -59,6 +59,37 @@ export const config = {
       },
     } as const;
   },
+  /**
+   * Text messages through the SMS provider (docs/decisions/008-sms-provider.md). All four of key,
+   * secret, signature secret and sender must be set, else texts are off and nothing else changes.
+   */
+  get sms(): { apiKey: string; apiSecret: string; signatureSecret: string; signatureMethod: string; from: string; restHost?: string } | null {
+    const apiKey = process.env.VONAGE_API_KEY;
+    const apiSecret = process.env.VONAGE_API_SECRET;
+    const signatureSecret = process.env.VONAGE_SIGNATURE_SECRET;
+    const from = process.env.SMS_FROM;
+    if (!apiKey || !apiSecret || !signatureSecret || !from) return null;
+    return {
+      apiKey,
+      apiSecret,
+      signatureSecret,
+      signatureMethod: process.env.VONAGE_SIGNATURE_METHOD ?? 'sha256',
+      from,
+      restHost: process.env.VONAGE_REST_HOST || undefined,
+    };
+  },
+  /** The vehicle enquiry service: off unless an API key is set. */
+  get vehicleEnquiry(): { apiKey: string; url: string; timeoutMs: number; perCustomerPerHour: number } | null {
+    const apiKey = process.env.VEHICLE_ENQUIRY_API_KEY;
+    if (!apiKey) return null;
+    return {
+      apiKey,
+      // From memory of the service's public documentation: the production endpoint.
+      url: (process.env.VEHICLE_ENQUIRY_URL ?? 'https://driver-vehicle-licensing.api.gov.uk/vehicle-enquiry/v1/vehicles').replace(/\/$/, ''),
+      timeoutMs: Number(process.env.VEHICLE_ENQUIRY_TIMEOUT_MS ?? 2000),
+      perCustomerPerHour: Number(process.env.RATE_LIMIT_VEHICLE_LOOKUPS_PER_HOUR ?? 20),
+    };
+  },
   get isTest() {
     return process.env.GROUNDWORK_TEST === '1';
   },

@@ -7,21 +7,19 @@ import { cases } from '../../db/schema';
 import { chaseCase } from './chase.server';
 import { db } from './db.server';
 import { SEND_QUEUE, SWEEP_QUEUE, startWorkerBoss } from './jobs.server';
-import { reminderSettings } from './settings.server';
+import { hourInGb, reminderSettings } from './settings.server';
+import { withinSendingHours } from '../text-rules';
 
 export { SEND_QUEUE, SWEEP_QUEUE };
 
-/** The hour in Great Britain, 0–23, so "never at night" means night at the customer's home. */
-export function hourInGb(now: Date): number {
-  return Number(new Intl.DateTimeFormat('en-GB', { timeZone: 'Europe/London', hour: '2-digit', hourCycle: 'h23' }).format(now));
-}
+export { hourInGb } from './settings.server';
 
 /** The cases due a reminder now, with the number their next reminder will carry. */
 export async function casesDueReminder(now = new Date()): Promise<{ caseId: string; n: number }[]> {
   const s = await reminderSettings();
   if (!s.enabled || s.maxReminders === 0) return [];
   const hour = hourInGb(now);
-  if (hour < s.sendFromHour || hour >= s.sendUntilHour) return [];
+  if (!withinSendingHours(hour, s.sendFromHour, s.sendUntilHour)) return [];
   const dueBefore = new Date(now.getTime() - s.everyDays * 86_400_000);
   const rows = await db()
     .select({ id: cases.id, sent: cases.remindersSent })
@@ -41,10 +39,10 @@ export async function casesDueReminder(now = new Date()): Promise<{ caseId: stri
 }
 
 /** Sends reminder number n for a case, at most once however often it is called. */
-export async function sendReminder(caseId: string, n: number) {
+export async function sendReminder(caseId: string, n: number, now = new Date()) {
   const [row] = await db().select().from(cases).where(eq(cases.id, caseId));
   if (!row || row.remindersSent >= n) return { sent: false, reason: 'Already sent.' };
-  return chaseCase(row, { actorId: null, reminder: true, dedupeKey: `reminder:${caseId}:${n}` });
+  return chaseCase(row, { actorId: null, reminder: true, dedupeKey: `reminder:${caseId}:${n}`, now });
 }
 
 /** Queues one send job per due slot; a slot already queued or running is not queued again. */

@@ -43,3 +43,8 @@ export async function saveSetting(key: string, value: unknown, actorId: string) 
 export function todayInGb(now = new Date()): string {
   return new Intl.DateTimeFormat('en-CA', { timeZone: 'Europe/London', year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
 }
+
+/** The hour in Great Britain, 0–23, so "never at night" means night at the customer's home. */
+export function hourInGb(now: Date): number {
+  return Number(new Intl.DateTimeFormat('en-GB', { timeZone: 'Europe/London', hour: '2-digit', hourCycle: 'h23' }).format(now));
+}

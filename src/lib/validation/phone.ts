@@ -27,3 +27,20 @@ export function checkUkPhone(input: string): PhoneResult {
   if (parsed.ext) return { ok: false, message: 'Please leave out the extension and give a number that reaches you directly.' };
   return { ok: true, e164: parsed.number, display: parsed.formatNational() };
 }
+
+/**
+ * Checks a UK mobile number, for text messages: a valid UK number (checkUkPhone) in the 07 mobile
+ * range. From memory of Ofcom's National Telephone Numbering Plan: 071–075 and 077–079 are
+ * mobiles, 070 is personal numbering and 076 radiopaging, except 07624 (Isle of Man mobiles).
+ * The prefix rule keeps the browser bundle on the small metadata; the tests check it against
+ * libphonenumber's full metadata.
+ *
+ * @example checkUkMobile('07400 123456') // { ok: true, e164: '+447400123456', display: '07400 123456' }
+ */
+export function checkUkMobile(input: string): PhoneResult {
+  const result = checkUkPhone(input);
+  if (!result.ok) return result;
+  const mobile = /^\+447[1-57-9]/.test(result.e164) || result.e164.startsWith('+447624');
+  if (!mobile) return { ok: false, message: 'Texts need a mobile number: a UK mobile starts 07 (or +44 7).' };
+  return result;
+}
