@@ -1,5 +1,8 @@
-// The background worker: automatic reminders and the storage sweep on the PostgreSQL job queue. Started by
-// `npm start` (and `npm test`) next to the app; stops cleanly on SIGINT/SIGTERM.
+// The background worker: automatic reminders, readiness recomputes and the storage sweep on the
+// PostgreSQL job queue. Started by `npm start` (and `npm test`) next to the app; any number may
+// run at once. Stops cleanly on SIGINT/SIGTERM.
+import { startWorkerBoss } from '../src/lib/server/jobs.server';
+import { workReadinessRecompute } from '../src/lib/server/readiness.server';
 import { startReminderWorker } from '../src/lib/server/reminders.server';
 import { startStorageSweep } from '../src/lib/server/storage-sweep.server';
 
@@ -7,11 +10,15 @@ import { startStorageSweep } from '../src/lib/server/storage-sweep.server';
 // pg-boss reconnects by itself, and starting should be no less patient.
 async function start() {
   for (;;) {
+    let boss: Awaited<ReturnType<typeof startWorkerBoss>> | undefined;
     try {
-      const boss = await startReminderWorker();
+      boss = await startWorkerBoss();
+      await startReminderWorker({ boss });
+      await workReadinessRecompute(boss);
       await startStorageSweep(boss);
       return boss;
     } catch (err) {
+      await boss?.stop({ graceful: false }).catch(() => {});
       console.warn(`[groundwork] The worker could not start (${(err as Error).message}); trying again in 5 s.`);
       await new Promise((r) => setTimeout(r, 5000));
     }
@@ -19,7 +26,7 @@ async function start() {
 }
 
 const boss = await start();
-console.log('[groundwork] Reminder worker and storage sweep running.');
+console.log('[groundwork] Worker running: reminders, readiness recomputes, storage sweep.');
 const stop = async () => {
   await boss.stop({ graceful: true, timeout: 5000 });
   process.exit(0);

@@ -100,6 +100,26 @@ export async function stopChildren() {
   );
 }
 
+/**
+ * Starts the S3 fake (fake-services/s3-server.mjs) as a child and answers the variables that
+ * point the app's S3 driver at it. s3rver needs DES for its list tokens: hence the flag.
+ * @example const s3Env = startS3Fake({ port: 4569, directory: '.data/s3' });
+ */
+export function startS3Fake({ port, directory, bucket = 'groundwork-uploads', quiet = true }) {
+  startChild('fake S3', process.execPath, ['--openssl-legacy-provider', 'fake-services/s3-server.mjs'], {
+    env: { FAKE_S3_PORT: String(port), FAKE_S3_DIR: directory, FAKE_S3_BUCKET: bucket },
+    quiet,
+  });
+  return {
+    S3_ENDPOINT: `http://127.0.0.1:${port}`,
+    S3_BUCKET: bucket,
+    S3_REGION: 'us-east-1',
+    S3_ACCESS_KEY_ID: 'S3RVER',
+    S3_SECRET_ACCESS_KEY: 'S3RVER',
+    S3_FORCE_PATH_STYLE: 'true',
+  };
+}
+
 /** Waits until an HTTP URL answers (any status), or fails after timeoutMs. */
 export async function waitForHttp(url, timeoutMs = 60_000) {
   const until = Date.now() + timeoutMs;

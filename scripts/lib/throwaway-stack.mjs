@@ -3,7 +3,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { appArgs, build, fakeServiceEnv, freePort, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp } from './stack.mjs';
+import { appArgs, build, fakeServiceEnv, freePort, migrate, root, runTsx, startChild, startDatabase, startS3Fake, stopChildren, waitForHttp } from './stack.mjs';
 
 export async function startThrowawayStack({ name = 'test', seed = true, worker = true } = {}) {
   const scratch = mkdtempSync(join(tmpdir(), `groundwork-${name}-`));
@@ -17,7 +17,7 @@ export async function startThrowawayStack({ name = 'test', seed = true, worker =
     if (db?.dataDir && !db.dataDir.startsWith(scratch)) rmSync(db.dataDir, { recursive: true, force: true });
   };
   try {
-    const [pgPort, appPort, smtpPort, mailHttpPort, smsPort, vehiclePort] = [await freePort(), await freePort(), await freePort(), await freePort(), await freePort(), await freePort()];
+    const [pgPort, appPort, smtpPort, mailHttpPort, smsPort, vehiclePort, s3Port] = [await freePort(), await freePort(), await freePort(), await freePort(), await freePort(), await freePort(), await freePort()];
     db = await startDatabase({
       dataDir: join(scratch, 'pg'),
       fallbackName: `groundwork-${name}-pg-${process.pid}`,
@@ -53,6 +53,10 @@ export async function startThrowawayStack({ name = 'test', seed = true, worker =
       RATE_LIMIT_LINK_PER_ADDRESS: '100000',
       RATE_LIMIT_PASSWORD_PER_ADDRESS: '100000',
     };
+    // The S3 fake is there for the tests that use the S3 driver (the storage suite, the cluster
+    // test); the app itself keeps the default local disk unless STORAGE_DRIVER says otherwise.
+    Object.assign(env, startS3Fake({ port: s3Port, directory: join(scratch, 's3') }));
+    await waitForHttp(env.S3_ENDPOINT);
     if (seed) runTsx('seeds/run.ts', env);
     startChild('fake mail', 'node', ['fake-services/mail-server.mjs'], {
       env: { FAKE_SMTP_PORT: String(smtpPort), FAKE_MAIL_HTTP_PORT: String(mailHttpPort) },

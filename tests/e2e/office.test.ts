@@ -465,6 +465,12 @@ describe('the office, in Chromium', () => {
     await page.getByLabel('Survey lead time').fill('10');
     await page.getByRole('button', { name: /Save 1 change/ }).first().click();
     await expect.poll(() => page.getByTestId('settings-message').first().textContent(), waitLong).toContain('Saved');
+    // The saved message says the recompute runs in the background: look at it at both widths.
+    for (const size of [DESKTOP, PHONE]) {
+      await page.setViewportSize(size);
+      await page.getByTestId('settings-message').first().scrollIntoViewIfNeeded();
+      await snap(page, `office-settings-saved-${size.width}`);
+    }
     const [stored] = await db.select().from(schema.settings).where(eq(schema.settings.key, 'readiness'));
     expect((stored!.value as { surveyLeadDays: number }).surveyLeadDays).toBe(10);
     await page.getByTestId('setting-surveyLeadDays').getByRole('button', { name: /Reset to default/ }).click();

@@ -6,7 +6,16 @@ export const baseUrl = (() => {
 })();
 
 export class Client {
-  private cookies = new Map<string, string>();
+  constructor(
+    /** The address this client talks to: the test stack's app unless told otherwise. */
+    readonly base: string = baseUrl,
+    private cookies = new Map<string, string>(),
+  ) {}
+
+  /** A client holding the same cookies (the same session) that talks to another address. */
+  at(base: string): Client {
+    return new Client(base, this.cookies);
+  }
 
   /** A second client holding the same cookies, as a copied session cookie would. */
   copy(): Client {
@@ -32,8 +41,8 @@ export class Client {
   async fetch(path: string, init: RequestInit = {}): Promise<Response> {
     const headers = new Headers(init.headers);
     if (this.cookies.size) headers.set('cookie', this.cookieHeader());
-    if (init.method && init.method !== 'GET') headers.set('origin', baseUrl);
-    const res = await fetch(new URL(path, baseUrl), { ...init, headers, redirect: 'manual' });
+    if (init.method && init.method !== 'GET') headers.set('origin', this.base);
+    const res = await fetch(new URL(path, this.base), { ...init, headers, redirect: 'manual' });
     for (const c of res.headers.getSetCookie()) {
       const [pair] = c.split(';');
       const i = pair!.indexOf('=');
@@ -75,8 +84,8 @@ export class Client {
 }
 
 /** Signs in a staff member with their password; throws if it fails. */
-export async function signInWithPassword(email: string, password: string): Promise<Client> {
-  const client = new Client();
+export async function signInWithPassword(email: string, password: string, base = baseUrl): Promise<Client> {
+  const client = new Client(base);
   const r = await client.authPost('/api/auth/callback/credentials', { email, password, callbackUrl: '/home' });
   if (r.status !== 200 || !r.url || r.url.includes('error=')) throw new Error(`password sign-in failed: ${r.status} ${r.url}`);
   return client;

@@ -20,12 +20,12 @@ export async function newCustomer(caseInput: Omit<CaseInput, 'customerId'> | nul
   return { user, client, case: theCase };
 }
 
-export async function signInWithLink(email: string, nth?: number): Promise<Client> {
-  const client = new Client();
+export async function signInWithLink(email: string, nth?: number, base = baseUrl): Promise<Client> {
+  const client = new Client(base);
   const r = await client.authPost('/api/auth/signin/nodemailer', { email, callbackUrl: '/home' });
   if (r.status !== 200) throw new Error(`link request failed: ${r.status}`);
   const message = await waitForMessage(email, nth ?? 1);
-  const link = linkIn(message, baseUrl);
+  const link = linkIn(message, base);
   const res = await client.fetch(link);
   if (res.status !== 302 || (res.headers.get('location') ?? '').includes('error=')) {
     throw new Error(`link sign-in failed: ${res.status} ${res.headers.get('location')}`);

@@ -220,7 +220,12 @@ describe('staff and settings', () => {
     try {
       const after = await admin.json(`/api/cases/${c!.id}/readiness`);
       expect(after.body.checks.find((x: { id: string }) => x.id === 'supply-headroom').light).toBe('amber');
-      expect((await caseRow(c!.id)).readinessChecks).toEqual(expect.arrayContaining([expect.objectContaining({ id: 'supply-headroom', light: 'amber' })]));
+      // The stored light (what the queue filters on) follows once the worker's recompute job runs.
+      const stored = async () => (await caseRow(c!.id)).readinessChecks as { id: string; light: string }[];
+      for (let i = 0; i < 100 && !(await stored()).some((x) => x.id === 'supply-headroom' && x.light === 'amber'); i++) {
+        await new Promise((r) => setTimeout(r, 200));
+      }
+      expect(await stored()).toEqual(expect.arrayContaining([expect.objectContaining({ id: 'supply-headroom', light: 'amber' })]));
       expect((await admin.send('PUT', '/api/settings', { readiness: { headroomMarginAmps: -1 } })).status).toBe(422);
       expect((await admin.send('PUT', '/api/settings', { readiness: { noSuchThing: 1 } })).status).toBe(422);
       // Only real ratings: a 20 A charger or a 45 A device is refused.

@@ -12,7 +12,7 @@ type SettingsAnswer = {
   reminders: ReminderSettings;
   defaults: ReadinessSettings;
   descriptions: Record<ReadinessSettingKey, SettingDescription>;
-  recomputed?: number;
+  recomputeQueued?: boolean;
 };
 type Draft = Record<string, string | boolean>;
 
@@ -185,7 +185,7 @@ export default function SettingsApp() {
     setMessage({
       group,
       ok: true,
-      text: group === 'readiness' ? `Saved. Readiness worked out again for ${plural(r.data.recomputed ?? 0, 'open case')}.` : 'Saved. The next reminders follow this schedule.',
+      text: group === 'readiness' ? 'Saved. Every open case is being worked out again with these settings: the lights in the queue change within a minute or so.' : 'Saved. The next reminders follow this schedule.',
     });
   }
 

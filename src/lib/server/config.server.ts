@@ -11,6 +11,14 @@ export const config = {
   get databaseUrl() {
     return env('DATABASE_URL');
   },
+  /** Connections in this process's pool (default 10). */
+  get databasePoolSize() {
+    return Number(env('DATABASE_POOL_SIZE', '10'));
+  },
+  /** false behind a transaction-mode connection pooler: postgres.js then sends no named prepared statements. */
+  get databasePrepare() {
+    return env('DATABASE_PREPARE', 'true') !== 'false';
+  },
   get authSecret() {
     return env('AUTH_SECRET');
   },
@@ -34,6 +42,22 @@ export const config = {
   },
   get uploadDir() {
     return env('UPLOAD_DIR', '.data/uploads');
+  },
+  /** Where uploads are kept: `local` (UPLOAD_DIR) or `s3` (a bucket; UPLOAD_DIR then holds only scratch files). */
+  get storage() {
+    const driver = env('STORAGE_DRIVER', 'local');
+    if (driver !== 'local' && driver !== 's3') throw new Error(`STORAGE_DRIVER must be "local" or "s3", not "${driver}".`);
+    return {
+      driver,
+      s3: {
+        bucket: driver === 's3' ? env('S3_BUCKET') : (process.env.S3_BUCKET ?? ''),
+        region: env('S3_REGION', 'us-east-1'),
+        endpoint: process.env.S3_ENDPOINT || undefined,
+        accessKeyId: process.env.S3_ACCESS_KEY_ID || undefined,
+        secretAccessKey: process.env.S3_SECRET_ACCESS_KEY || undefined,
+        forcePathStyle: process.env.S3_FORCE_PATH_STYLE === 'true',
+      },
+    } as const;
   },
   /**
    * Text messages through the SMS provider (docs/decisions/008-sms-provider.md). All four of key,

@@ -23,8 +23,8 @@ const seconds = (name: string, fallback: number) => {
 
 /** The limits, in seconds; each can be set by an environment variable of the same meaning. */
 export const dbLimits = {
-  /** Connections in the pool. */
-  poolSize: seconds('DB_POOL_SIZE', 10),
+  /** Connections in the pool (a count, not seconds). */
+  poolSize: seconds('DATABASE_POOL_SIZE', 10),
   /** Opening a TCP connection to PostgreSQL. */
   connect: seconds('DB_CONNECT_TIMEOUT', 5),
   /** Waiting for a free pool connection before a transaction gives up with 503. */
@@ -57,6 +57,9 @@ export function db(): Db {
       // restarted PostgreSQL never leaves the pool holding dead sockets for long.
       idle_timeout: 60,
       max_lifetime: 30 * 60,
+      // Behind a transaction-mode pooler (PgBouncer and the like) each transaction may land on a
+      // different server connection, so named prepared statements must be off (docs/deploy.md).
+      prepare: config.databasePrepare,
       onnotice: () => {},
       // Sent as startup parameters: they hold for every session of this pool, whatever the role.
       connection: {

@@ -7,7 +7,9 @@ import { lightRank } from '../readiness/lights';
 import { markConfirmedOnSite, readSiteMeasures, withSiteFindings, type SiteFindings } from '../schemas/outcome';
 import { db } from './db.server';
 import { refreshSearchTextSql } from '../../db/search-text';
+import { RECOMPUTE_QUEUE } from './jobs.server';
 import { readinessSettings, todayInGb } from './settings.server';
+import type PgBoss from 'pg-boss';
 
 import type { Conn } from './db.server';
 
@@ -83,4 +85,15 @@ export async function refreshAllOpenCases(): Promise<number> {
   const settings = await readinessSettings();
   for (const { id } of ids) await refreshReadiness(db(), id, settings);
   return ids.length;
+}
+
+/**
+ * The worker's side of queueReadinessRecompute: each job recomputes every open case with the
+ * settings as they are when it runs.
+ * @example await workReadinessRecompute(boss)
+ */
+export async function workReadinessRecompute(boss: PgBoss): Promise<void> {
+  await boss.work(RECOMPUTE_QUEUE, async () => {
+    await refreshAllOpenCases();
+  });
 }

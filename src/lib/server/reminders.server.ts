@@ -1,17 +1,16 @@
 // Server-only: automatic reminders on a PostgreSQL-backed job queue (pg-boss). A sweep finds the
 // cases due a reminder and queues one job per (case, reminder number); the job sends through
 // sendCaseMail with the same key, so a retried or restarted job can never send twice.
-import PgBoss from 'pg-boss';
+import type PgBoss from 'pg-boss';
 import { and, eq, inArray, lt, or, isNull, sql } from 'drizzle-orm';
 import { cases } from '../../db/schema';
 import { chaseCase } from './chase.server';
-import { config } from './config.server';
 import { db } from './db.server';
+import { SEND_QUEUE, SWEEP_QUEUE, startWorkerBoss } from './jobs.server';
 import { hourInGb, reminderSettings } from './settings.server';
 import { withinSendingHours } from '../text-rules';
 
-export const SWEEP_QUEUE = 'reminders-sweep';
-export const SEND_QUEUE = 'reminders-send';
+export { SEND_QUEUE, SWEEP_QUEUE };
 
 export { hourInGb } from './settings.server';
 
@@ -46,22 +45,26 @@ export async function sendReminder(caseId: string, n: number, now = new Date()) 
   return chaseCase(row, { actorId: null, reminder: true, dedupeKey: `reminder:${caseId}:${n}`, now });
 }
 
+/** Queues one send job per due slot; a slot already queued or running is not queued again. */
+export async function sweepReminders(boss: PgBoss, now = new Date()): Promise<number> {
+  let queued = 0;
+  for (const due of await casesDueReminder(now)) {
+    if ((await boss.send(SEND_QUEUE, due, { singletonKey: `${due.caseId}:${due.n}` })) !== null) queued++;
+  }
+  return queued;
+}
+
 /**
  * Starts the queue: a sweep on a schedule (every 15 minutes by default) and the send worker.
+ * However many workers run, pg-boss fires the schedule once per tick and the queues' stately
+ * policy keeps one sweep and one job per reminder slot (see jobs.server.ts).
  * @example const boss = await startReminderWorker(); … await boss.stop();
  */
-export async function startReminderWorker({ cron = process.env.REMINDER_SWEEP_CRON ?? '*/15 * * * *' } = {}) {
-  const boss = new PgBoss({ connectionString: config.databaseUrl, schema: 'pgboss', max: 3 });
-  boss.on('error', (err) => console.error('[reminders]', err));
-  await boss.start();
-  await boss.createQueue(SWEEP_QUEUE);
-  await boss.createQueue(SEND_QUEUE, { name: SEND_QUEUE, retryLimit: 3, retryDelay: 60 });
-  await boss.schedule(SWEEP_QUEUE, cron, {}, { tz: 'Europe/London' });
+export async function startReminderWorker({ cron = process.env.REMINDER_SWEEP_CRON ?? '*/15 * * * *', boss: given }: { cron?: string; boss?: PgBoss } = {}) {
+  const boss = given ?? (await startWorkerBoss());
+  await boss.schedule(SWEEP_QUEUE, cron, {}, { tz: 'Europe/London', singletonKey: 'sweep' });
   await boss.work(SWEEP_QUEUE, async () => {
-    for (const due of await casesDueReminder()) {
-      // One job per case and reminder number: queuing the same slot twice is a no-op.
-      await boss.send(SEND_QUEUE, due, { singletonKey: `${due.caseId}:${due.n}` });
-    }
+    await sweepReminders(boss);
   });
   await boss.work<{ caseId: string; n: number }>(SEND_QUEUE, async ([job]) => {
     await sendReminder(job!.data.caseId, job!.data.n);

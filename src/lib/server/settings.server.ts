@@ -5,14 +5,20 @@ import { resolveReadinessSettings, type ReadinessSettings } from '../readiness';
 import { reminderSettingsSchema, type ReminderSettings } from '../schemas/settings';
 import { db } from './db.server';
 
-async function readSetting(key: string): Promise<unknown> {
-  const [row] = await db().select().from(settings).where(eq(settings.key, key)).limit(1);
+/** The database or an open transaction: anything that can run a select. */
+type Conn = Pick<ReturnType<typeof db>, 'select'>;
+
+async function readSetting(key: string, conn: Conn = db()): Promise<unknown> {
+  const [row] = await conn.select().from(settings).where(eq(settings.key, key)).limit(1);
   return row?.value ?? null;
 }
 
-/** Saved readiness settings over the documented defaults. */
-export async function readinessSettings(): Promise<ReadinessSettings> {
-  const saved = await readSetting('readiness');
+/**
+ * Saved readiness settings over the documented defaults. Inside a transaction pass it: a second
+ * pool connection per transaction deadlocks once every connection holds one (ten saves at once).
+ */
+export async function readinessSettings(conn: Conn = db()): Promise<ReadinessSettings> {
+  const saved = await readSetting('readiness', conn);
   try {
     return resolveReadinessSettings((saved ?? {}) as Record<string, unknown>);
   } catch {

@@ -12,7 +12,9 @@ import { db } from './db.server';
 import { uploadStorage, type Storage } from './storage/index.server';
 import { scratchDir } from './uploads.server';
 
-export const STORAGE_SWEEP_QUEUE = 'storage-sweep';
+import { STORAGE_SWEEP_QUEUE } from './jobs.server';
+
+export { STORAGE_SWEEP_QUEUE };
 
 /** An hour: a 15 MB photo at 1 Mbit/s takes about two minutes to arrive. */
 export const DEFAULT_GRACE_MINUTES = Number(process.env.STORAGE_SWEEP_GRACE_MINUTES ?? 60);
@@ -92,7 +94,6 @@ async function sweepBatch(storage: Storage, batch: { key: string; size: number; 
  * carry `{ graceMinutes }`; its output is the report, kept by pg-boss with the job.
  */
 export async function startStorageSweep(boss: PgBoss, { cron = process.env.STORAGE_SWEEP_CRON ?? '23 * * * *' } = {}) {
-  await boss.createQueue(STORAGE_SWEEP_QUEUE);
   await boss.schedule(STORAGE_SWEEP_QUEUE, cron, {}, { tz: 'Europe/London' });
   await boss.work<{ graceMinutes?: number }>(STORAGE_SWEEP_QUEUE, async ([job]) => {
     const grace = job?.data?.graceMinutes;

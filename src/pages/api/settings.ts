@@ -1,7 +1,7 @@
 import { api, json, parseJsonBody } from '../../lib/server/http';
 import { requireRole } from '../../lib/server/auth';
 import { readinessSettings, reminderSettings, saveSetting } from '../../lib/server/settings.server';
-import { refreshAllOpenCases } from '../../lib/server/readiness.server';
+import { queueReadinessRecompute } from '../../lib/server/jobs.server';
 import { audit } from '../../lib/server/audit.server';
 import { db } from '../../lib/server/db.server';
 import { settingsUpdateSchema } from '../../lib/schemas/settings';
@@ -17,7 +17,7 @@ export const GET = api(async (ctx) => {
   return json(await current());
 });
 
-/** PUT /api/settings — change any setting; every open case's readiness is recomputed (admin). */
+/** PUT /api/settings — change any setting; a readiness change queues a recompute of every open case (admin). */
 export const PUT = api(async (ctx) => {
   const admin = requireRole(ctx, 'admin');
   const body = await parseJsonBody(ctx.request, settingsUpdateSchema);
@@ -25,6 +25,7 @@ export const PUT = api(async (ctx) => {
   if (body.readiness) await saveSetting('readiness', { ...before.readiness, ...body.readiness }, admin.id);
   if (body.reminders) await saveSetting('reminders', body.reminders, admin.id);
   await audit(db(), { actorId: admin.id, action: 'settings.updated', entity: 'settings', before: { readiness: before.readiness, reminders: before.reminders }, after: body });
-  const recomputed = body.readiness ? await refreshAllOpenCases() : 0;
-  return json({ ...(await current()), recomputed });
+  // The worker recomputes in the background: a request never loops over every case.
+  const recomputeQueued = body.readiness ? (await queueReadinessRecompute(), true) : false;
+  return json({ ...(await current()), recomputeQueued });
 });

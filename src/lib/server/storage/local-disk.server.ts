@@ -2,7 +2,7 @@
 import { createReadStream } from 'node:fs';
 import { chmod, copyFile, link, mkdir, opendir, rm, stat, unlink, writeFile } from 'node:fs/promises';
 import { dirname, join, resolve, sep } from 'node:path';
-import { assertSafeKey, isSafeKey, type PutSource, type Storage, type StoredObject } from './storage';
+import { assertSafeKey, isSafeKey, type ListedObject, type PutSource, type Storage, type StoredObject } from './storage';
 
 export class LocalDiskStorage implements Storage {
   readonly root: string;
@@ -58,11 +58,11 @@ export class LocalDiskStorage implements Storage {
   }
 
   /** Walks the folders under the root; names that are not keys (such as `.incoming/`) are skipped. */
-  async *list(prefix = ''): AsyncIterable<{ key: string; size: number; modifiedAt: Date }> {
+  async *list(prefix = ''): AsyncIterable<ListedObject> {
     yield* this.walk('', prefix);
   }
 
-  private async *walk(dir: string, prefix: string): AsyncGenerator<{ key: string; size: number; modifiedAt: Date }> {
+  private async *walk(dir: string, prefix: string): AsyncGenerator<ListedObject> {
     let entries;
     try {
       entries = await opendir(dir ? join(this.root, dir) : this.root);

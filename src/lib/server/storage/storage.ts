@@ -8,6 +8,13 @@ export interface StoredObject {
   size: number;
 }
 
+/** One stored object as a listing reports it. */
+export interface ListedObject {
+  key: string;
+  size: number;
+  modifiedAt: Date;
+}
+
 /** What `put` stores: a finished file on local disk (consumed: moved, not copied) or bytes. */
 export type PutSource = { file: string } | Buffer;
 
@@ -23,7 +30,7 @@ export interface Storage {
    * Every stored object whose key starts with `prefix` (all when omitted), in no set order, for
    * the sweep that removes files no row refers to. Temporary files are not objects: never listed.
    */
-  list(prefix?: string): AsyncIterable<{ key: string; size: number; modifiedAt: Date }>;
+  list(prefix?: string): AsyncIterable<ListedObject>;
 }
 
 // Keys are made by the app (ids, never user input), but refuse anything path-like regardless.
