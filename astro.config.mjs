@@ -4,6 +4,7 @@ import node from '@astrojs/node';
 import react from '@astrojs/react';
 import tailwind from '@astrojs/tailwind';
 import auth from 'auth-astro';
+import precompress from './scripts/lib/precompress.mjs';
 
 // Astro builds request URLs as http://localhost unless the host is listed here, and then
 // refuses every form POST from 127.0.0.1 as cross-site. List the hosts we serve on.
@@ -14,8 +15,9 @@ export default defineConfig({
   output: 'server',
   // `npm test` builds into a folder of its own so it never disturbs a running `npm start`.
   outDir: process.env.GROUNDWORK_OUT_DIR ?? './dist',
-  adapter: node({ mode: 'standalone' }),
-  integrations: [react(), tailwind({ applyBaseStyles: false }), auth()],
+  // Middleware mode: scripts/server.mjs owns the HTTP server (compression, static files, timeouts).
+  adapter: node({ mode: 'middleware' }),
+  integrations: [react(), tailwind({ applyBaseStyles: false }), auth(), precompress()],
   security: {
     checkOrigin: true,
     allowedDomains: hosts.map((hostname) => ({ hostname })),

@@ -2,7 +2,7 @@
 // `npm start`: everything from a fresh clone to a running Groundwork on http://127.0.0.1:4321.
 import { join } from 'node:path';
 import {
-  build, ensureNodeModules, localSecret, log, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp,
+  build, ensureNodeModules, serverEntry, localSecret, log, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp,
 } from './lib/stack.mjs';
 
 const port = Number(process.env.PORT ?? 4321);
@@ -56,8 +56,8 @@ try {
       env: { FAKE_SMTP_PORT: String(smtpPort), FAKE_MAIL_HTTP_PORT: String(mailHttpPort) },
     });
   }
-  const entry = build('dist', env);
-  startChild('app', 'node', [entry], { env, quiet: true });
+  Object.assign(env, build('dist', env));
+  startChild('app', 'node', [serverEntry], { env, quiet: true });
   startChild('worker', join(root, 'node_modules', '.bin', 'tsx'), ['scripts/worker.ts'], { env, quiet: true });
   await waitForHttp(`${appUrl}/api/health`);
   console.log(`

@@ -3,7 +3,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { build, freePort, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp } from './stack.mjs';
+import { build, freePort, migrate, root, runTsx, serverEntry, startChild, startDatabase, stopChildren, waitForHttp } from './stack.mjs';
 
 export async function startThrowawayStack({ name = 'test', seed = true, worker = true } = {}) {
   const scratch = mkdtempSync(join(tmpdir(), `groundwork-${name}-`));
@@ -53,9 +53,8 @@ export async function startThrowawayStack({ name = 'test', seed = true, worker =
       env: { FAKE_SMTP_PORT: String(smtpPort), FAKE_MAIL_HTTP_PORT: String(mailHttpPort) },
       quiet: true,
     });
-    const entry = build(outDir, env);
-    env.APP_ENTRY = entry;
-    startChild('app', 'node', [entry], { env, quiet: true });
+    Object.assign(env, build(outDir, env));
+    startChild('app', 'node', [serverEntry], { env, quiet: true });
     if (worker) startChild('worker', join(root, 'node_modules', '.bin', 'tsx'), ['scripts/worker.ts'], { env, quiet: true });
     await waitForHttp(`${appUrl}/api/health`);
     return { env, stop };
