@@ -50,7 +50,7 @@ describe('compressed responses', () => {
   for (const [what, target, type] of cases) {
     it(`${what}: brotli when asked for, gzip when only that is, none when neither is`, async () => {
       const { path, cookie } = target();
-      const base = cookie ? { cookie } : {};
+      const base: Record<string, string> = cookie ? { cookie } : {};
       const plain = await raw(path, { ...base, 'accept-encoding': 'identity' });
       expect(plain.status).toBe(200);
       expect(plain.headers['content-type']).toMatch(type);
