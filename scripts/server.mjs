@@ -52,6 +52,21 @@ const assets = sirv(join(dist, 'client'), {
 // threshold: below about 1 KB compression saves less than its own header overhead.
 const compress = compression({ threshold: 1024 });
 
+/**
+ * compression's res.write drops a write's callback. Astro's adapter, when a page throws half-way
+ * through streaming, writes "Internal server error" and destroys the response in that callback:
+ * without it the connection would hang open. Call it once the chunk is handed on.
+ */
+function keepWriteCallbacks(res) {
+  const write = res.write;
+  res.write = function writeWithCallback(chunk, encoding, callback) {
+    const done = typeof encoding === 'function' ? encoding : callback;
+    const ok = write.call(this, chunk, typeof encoding === 'function' ? undefined : encoding);
+    if (typeof done === 'function') process.nextTick(done);
+    return ok;
+  };
+}
+
 const server = http.createServer((req, res) => {
   try {
     decodeURI(req.url ?? '/');
@@ -60,7 +75,11 @@ const server = http.createServer((req, res) => {
     return;
   }
   const method = req.method ?? 'GET';
-  const render = () => compress(req, res, () => app(req, res));
+  const render = () =>
+    compress(req, res, () => {
+      keepWriteCallbacks(res);
+      app(req, res);
+    });
   if (method === 'GET' || method === 'HEAD') assets(req, res, render);
   else render();
 });
