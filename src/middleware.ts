@@ -1,9 +1,9 @@
 // Every request passes through here: sign-in attempts are rate-limited, then the session is
 // read and `locals.user` filled with the active user (or null).
 import { defineMiddleware, sequence } from 'astro:middleware';
-import { getSession } from 'auth-astro/server';
 import { errorResponse, HttpError } from './lib/server/http';
 import { signInLimits } from './lib/server/rate-limit.server';
+import { sessionUserId } from './lib/server/session.server';
 import { findActiveUser, normaliseEmail } from './lib/server/users.server';
 
 const PASSWORD_PATH = '/api/auth/callback/credentials';
@@ -62,8 +62,9 @@ const rateLimit = defineMiddleware(async (ctx, next) => {
 const auth = defineMiddleware(async (ctx, next) => {
   ctx.locals.user = null;
   if (ctx.url.pathname.startsWith('/api/auth/') || ctx.url.pathname.startsWith('/_astro/')) return next();
-  const session = await getSession(ctx.request).catch(() => null);
-  const id = (session?.user as { id?: string } | undefined)?.id;
+  // The cookie says who; the database says whether they are still active, on every request, so
+  // a deactivated account stops at once.
+  const id = await sessionUserId(ctx.cookies);
   if (id) ctx.locals.user = (await findActiveUser(id)) ?? null;
   return next();
 });
