@@ -7,6 +7,7 @@
 // the target is HTTP ≤ 1.5 × SQL at both percentiles. Runs under tsx to reuse the app's query.
 import { ensureNodeModules, log } from './lib/stack.mjs';
 import { startThrowawayStack } from './lib/throwaway-stack.mjs';
+import { seedBenchCases } from './lib/bench-seed.mjs';
 
 ensureNodeModules();
 const SIZES = String(process.env.BENCH_CASES ?? '10000,100000').split(',').map(Number).filter((n) => n > 0).sort((a, b) => a - b);
@@ -25,32 +26,6 @@ const pct = (sorted, p) => sorted[Math.min(sorted.length - 1, Math.floor((p / 10
 const results = [];
 try {
   const sql = postgres(stack.env.DATABASE_URL, { max: CONNECTIONS, onnotice: () => {} });
-
-  /** Invented people and homes, made in SQL so 100,000 rows take seconds. */
-  async function seed(from, to) {
-    log(`Seeding cases ${from}–${to}…`);
-    await sql`
-      insert into users (id, name, email, role)
-      select 'bench-' || g, 'Bench Customer ' || g, 'bench' || g || '@example.org', 'customer'
-      from generate_series(${from}::int, ${to}::int) g`;
-    // Every third has no parking (red), the rest are amber or green; postcodes and MPAN-shaped numbers vary.
-    await sql`
-      insert into cases (reference, customer_id, address_line1, town, postcode, stage, checklist, invited_at,
-                         readiness_light, readiness_rank, readiness_gaps, readiness_checks)
-      select 'GWB' || lpad(g::text, 6, '0'), 'bench-' || g, g || ' Bench Street', 'Quillbury',
-             'AB' || (g % 9 + 1) || ' ' || (g % 10) || 'XY',
-             (array['invited','filling_in','sent_for_review','in_review','ready_for_survey'])[g % 5 + 1]::case_stage,
-             jsonb_build_object('supply', jsonb_build_object('mpanCore', (1000000000000 + g)::text),
-                                'vehicle', jsonb_build_object('deliveryDate', to_char(now()::date + (g % 90), 'YYYY-MM-DD'))),
-             now() - (g % 60) * interval '1 day',
-             (array['red','amber','green'])[g % 3 + 1]::readiness_light, g % 3, g % 9,
-             jsonb_build_array(jsonb_build_object('id', 'parking', 'light', (array['red','amber','green'])[g % 3 + 1], 'title', 'Parking'))
-      from generate_series(${from}::int, ${to}::int) g`;
-    await sql`update cases c set search_text = lower(concat_ws(' ', u.name, u.email, replace(coalesce(c.postcode, ''), ' ', ''), c.reference, c.checklist -> 'supply' ->> 'mpanCore'))
-              from users u where u.id = c.customer_id and u.id like 'bench-%' and c.search_text is distinct from lower(concat_ws(' ', u.name, u.email, replace(coalesce(c.postcode, ''), ' ', ''), c.reference, c.checklist -> 'supply' ->> 'mpanCore'))`;
-    await sql`vacuum analyze cases`;
-    await sql`vacuum analyze users`;
-  }
 
   // Sign in as the demo admin, as a browser would.
   const base = stack.env.APP_URL;
@@ -73,7 +48,7 @@ try {
 
   let seeded = 0;
   for (const size of SIZES) {
-    await seed(seeded + 1, size);
+    await seedBenchCases(sql, seeded + 1, size);
     seeded = size;
     const check = await fetch(base + path, { headers: { cookie } });
     const sample = await check.json();
