@@ -2,7 +2,7 @@
 // `npm start`: everything from a fresh clone to a running Groundwork on http://127.0.0.1:4321.
 import { join } from 'node:path';
 import {
-  appArgs, build, ensureNodeModules, fakeServiceEnv, localSecret, log, migrate, root, runTsx, startChild, startDatabase, stopChildren, waitForHttp,
+  appArgs, build, ensureNodeModules, fakeServiceEnv, localSecret, log, migrate, root, runTsx, serverEntry, startChild, startDatabase, stopChildren, waitForHttp,
 } from './lib/stack.mjs';
 
 const port = Number(process.env.PORT ?? 4321);
@@ -66,8 +66,8 @@ try {
   }
   if (!realSms) startChild('fake sms', 'node', ['fake-services/sms-server.mjs'], { env: fakes.sms });
   if (!realVehicles) startChild('fake vehicles', 'node', ['fake-services/vehicle-enquiry-server.mjs'], { env: fakes.vehicles });
-  const entry = build('dist', env);
-  startChild('app', 'node', appArgs(entry), { env, quiet: true });
+  Object.assign(env, build('dist', env));
+  startChild('app', 'node', appArgs(serverEntry), { env, quiet: true });
   startChild('worker', join(root, 'node_modules', '.bin', 'tsx'), ['scripts/worker.ts'], { env, quiet: true });
   await waitForHttp(`${appUrl}/api/health`);
   console.log(`

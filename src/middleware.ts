@@ -6,12 +6,12 @@
 // 3. session: `locals.user` is the active user whose session has not been ended, or null;
 // 4. security headers on every answer.
 import { defineMiddleware, sequence } from 'astro:middleware';
-import { getSession } from 'auth-astro/server';
 import { bodyRefusal } from './lib/server/body-limit.server';
 import { isDatabaseUnavailable } from './lib/server/db-errors.server';
 import { databaseUnavailable, errorResponse, HttpError, UNAVAILABLE_HEADER } from './lib/server/http';
 import { clientAddressOf, runWithRequestState, type RequestState } from './lib/server/request-context.server';
 import { withSecurityHeaders } from './lib/server/security-headers.server';
+import { sessionTokenClaims } from './lib/server/session.server';
 import { findSessionUser } from './lib/server/sessions.server';
 
 function tooMany(seconds: number): Response {
@@ -57,11 +57,12 @@ const auth = defineMiddleware(async (ctx, next) => {
   // the database a second time would fail again and lose the error the page explains.
   if (failedRequests.has(ctx.request)) return next();
   if (ctx.url.pathname.startsWith('/api/auth/') || ctx.url.pathname.startsWith('/_astro/')) return next();
-  const session = await getSession(ctx.request).catch(() => null);
-  const claims = session?.user as { id?: string; sid?: string; sv?: number } | undefined;
-  if (claims?.id) {
+  // The cookie says who; the database says whether the account is active and the session has
+  // not been ended, on every request, so a sign-out or deactivation takes effect at once.
+  const claims = await sessionTokenClaims(ctx.cookies);
+  if (claims) {
     try {
-      ctx.locals.user = (await findSessionUser({ uid: claims.id, sid: claims.sid, sv: claims.sv })) ?? null;
+      ctx.locals.user = (await findSessionUser(claims)) ?? null;
     } catch (err) {
       // API callers get the JSON 503; pages fall through to src/pages/500.astro, which says 503 kindly.
       if (!isDatabaseUnavailable(err)) throw err;

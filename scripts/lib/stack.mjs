@@ -134,7 +134,14 @@ export async function waitForHttp(url, timeoutMs = 60_000) {
   }
 }
 
-/** Builds the app into outDir (relative to the project, so the server finds node_modules). */
+/** The server entry every script starts the app with (see scripts/server.mjs). */
+export const serverEntry = join(root, 'scripts', 'server.mjs');
+
+/**
+ * Builds the app into outDir (relative to the project, so the server finds node_modules) and
+ * returns the environment that points scripts/server.mjs at it.
+ * @example startChild('app', 'node', [serverEntry], { env: { ...env, ...build('dist', env) } });
+ */
 export function build(outDir = 'dist', env = {}) {
   log('Building the app (astro build)…');
   execFileSync(join(root, 'node_modules', '.bin', 'astro'), ['build'], {
@@ -142,7 +149,7 @@ export function build(outDir = 'dist', env = {}) {
     stdio: ['ignore', 'ignore', 'inherit'],
     env: { ...process.env, ...env, GROUNDWORK_OUT_DIR: outDir },
   });
-  return join(root, outDir, 'server', 'entry.mjs');
+  return { APP_DIST: join(root, outDir), APP_ENTRY: serverEntry };
 }
 
 /**

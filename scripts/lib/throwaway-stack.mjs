@@ -3,7 +3,7 @@
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { appArgs, build, fakeServiceEnv, freePort, migrate, root, runTsx, startChild, startDatabase, startS3Fake, stopChildren, waitForHttp } from './stack.mjs';
+import { appArgs, build, fakeServiceEnv, freePort, migrate, root, runTsx, serverEntry, startChild, startDatabase, startS3Fake, stopChildren, waitForHttp } from './stack.mjs';
 
 export async function startThrowawayStack({ name = 'test', seed = true, worker = true } = {}) {
   const scratch = mkdtempSync(join(tmpdir(), `groundwork-${name}-`));
@@ -64,9 +64,8 @@ export async function startThrowawayStack({ name = 'test', seed = true, worker =
     });
     startChild('fake sms', 'node', ['fake-services/sms-server.mjs'], { env: fakes.sms, quiet: true });
     startChild('fake vehicles', 'node', ['fake-services/vehicle-enquiry-server.mjs'], { env: fakes.vehicles, quiet: true });
-    const entry = build(outDir, env);
-    env.APP_ENTRY = entry;
-    startChild('app', 'node', appArgs(entry), { env, quiet: true });
+    Object.assign(env, build(outDir, env));
+    startChild('app', 'node', appArgs(serverEntry), { env, quiet: true });
     if (worker) startChild('worker', join(root, 'node_modules', '.bin', 'tsx'), ['scripts/worker.ts'], { env, quiet: true });
     await waitForHttp(`${appUrl}/api/health`);
     return { env, stop };

@@ -263,7 +263,7 @@ describe('the office, in Chromium', () => {
     }
     const slot = customer.page.getByTestId('upload-slot-cutout_photo');
     const fileInput = () => slot.locator('input[type=file]:not([webkitdirectory])').first();
-    await customer.page.locator('astro-island:not([ssr]) [data-testid="upload-slot-cutout_photo"] .uppy-Dashboard').waitFor();
+    await customer.page.locator('astro-island:not([ssr]) [data-testid="upload-slot-cutout_photo"] [data-testid="drop-zone"]').waitFor();
     await fileInput().setInputFiles({ name: 'cut-out.jpg', mimeType: 'image/jpeg', buffer: await cutoutPhoto(true) });
     await slot.getByTestId('uploaded-file').first().waitFor({ timeout: 30_000 });
 
@@ -291,7 +291,7 @@ describe('the office, in Chromium', () => {
 
     // The customer sends a sharper one.
     await customer.page.reload();
-    await customer.page.locator('astro-island:not([ssr]) [data-testid="upload-slot-cutout_photo"] .uppy-Dashboard').waitFor();
+    await customer.page.locator('astro-island:not([ssr]) [data-testid="upload-slot-cutout_photo"] [data-testid="drop-zone"]').waitFor();
     await fileInput().setInputFiles({ name: 'cut-out-closer.jpg', mimeType: 'image/jpeg', buffer: await cutoutPhoto(false) });
     await expect
       .poll(async () => (await db.select().from(schema.uploads).where(eq(schema.uploads.caseId, caseId))).length, { timeout: 30_000 })

@@ -24,14 +24,20 @@ async function tenantWithCase(name: string) {
   return { user, row };
 }
 
-// Astro drops an island's `ssr` attribute once React has hydrated it; Uppy mounts after that.
+// Astro drops an island's `ssr` attribute once React has hydrated it. Each slot shows a light
+// drop zone; Uppy's widget replaces it once the customer uses the slot.
 async function openPhotos(page: Page, caseId: string) {
   await page.goto(`/my/cases/${caseId}/photos`);
-  await page.locator('astro-island:not([ssr]) [data-testid^="upload-slot-"] .uppy-Dashboard').first().waitFor();
+  await page.locator('astro-island:not([ssr]) [data-testid^="upload-slot-"] [data-testid="drop-zone"]').first().waitFor();
 }
 
 const slot = (page: Page, kind: string) => page.getByTestId(`upload-slot-${kind}`);
-const fileInput = (page: Page, kind: string) => slot(page, kind).locator('input.uppy-Dashboard-input[name="files[]"]:not([webkitdirectory])');
+// The drop zone's own picker, or Uppy's once the widget is open: both are named files[].
+const fileInput = (page: Page, kind: string) => slot(page, kind).locator('input[type="file"][name="files[]"]:not([webkitdirectory])');
+const dropZoneOrWidget = '[data-testid="drop-zone"], .uppy-Dashboard';
+/** Scripts the page has fetched so far. */
+const scriptsLoaded = (page: Page) =>
+  page.evaluate(() => performance.getEntriesByType('resource').map((e) => e.name).filter((name) => name.endsWith('.js')));
 
 /** Chromium's network emulation slows the upload so the progress bar is on screen long enough to see. */
 async function throttleUploads(context: BrowserContext, page: Page, bytesPerSecond: number | -1) {
@@ -59,7 +65,11 @@ describe('photos and documents, in Chromium', () => {
     await expect(page.getByTestId('photo-caution').textContent()).resolves.toContain('never remove their covers');
     await snap(page, 'uploads-empty-390');
 
-    // A ~8 MB photo at 2 MB/s takes about four seconds: long enough to see (and catch) the progress bar.
+    // Uppy (about 65 KB compressed) is not fetched until a slot is used.
+    expect((await scriptsLoaded(page)).filter((name) => /upload-widget/.test(name))).toEqual([]);
+
+    // A noisy 3000 × 3000 photo: resized in the browser to 2560 × 2560 (the long edge chosen in
+    // upload-widget.tsx), still several MB, so at 2 MB/s the progress bar is on screen for a while.
     const photo = await noisyJpeg(3000, 3000);
     await throttleUploads(context, page, 2 * 1024 * 1024);
     await fileInput(page, 'cutout_photo').setInputFiles({ name: 'fuse.jpg', mimeType: 'image/jpeg', buffer: photo });
@@ -68,17 +78,19 @@ describe('photos and documents, in Chromium', () => {
     await expect(slot(page, 'cutout_photo').locator('.uppy-Dashboard-Item').count()).resolves.toBe(1);
     await snap(page, 'uploads-sending-390');
     await throttleUploads(context, page, -1);
+    expect((await scriptsLoaded(page)).filter((name) => /upload-widget/.test(name))).toHaveLength(1);
 
     const sent = slot(page, 'cutout_photo').getByTestId('uploaded-file');
     await sent.waitFor({ timeout: 30_000 });
     const thumb = sent.locator('img');
     await page.waitForFunction((img) => (img as HTMLImageElement).complete && (img as HTMLImageElement).naturalWidth > 0, await thumb.elementHandle());
-    // The 3000 × 3000 photo is previewed 480 px wide on the server, shown at 80 px here.
+    // The photo, resized to 2560 px in the browser, is previewed 480 px wide on the server, shown at 80 px here.
     await expect(thumb.evaluate((img) => (img as HTMLImageElement).naturalWidth)).resolves.toBe(480);
     await expect(sent.textContent()).resolves.toContain('Waiting for review');
     await expect(slot(page, 'cutout_photo').getByTestId('slot-status').textContent()).resolves.toBe('Waiting for review');
     const [stored] = await db.select().from(schema.uploads).where(eq(schema.uploads.caseId, row.id));
-    expect(stored).toMatchObject({ kind: 'cutout_photo', originalName: 'fuse.jpg', mimeType: 'image/jpeg', width: 3000, height: 3000 });
+    // Resized before it left the browser: the server keeps the size it received.
+    expect(stored).toMatchObject({ kind: 'cutout_photo', originalName: 'fuse.jpg', mimeType: 'image/jpeg', width: 2560, height: 2560 });
 
     // A document in another slot, and two files the office has reviewed, for the "with files" screenshots.
     await fileInput(page, 'order_agreement').setInputFiles({ name: 'order-agreement.pdf', mimeType: 'application/pdf', buffer: tinyPdf() });
@@ -98,8 +110,8 @@ describe('photos and documents, in Chromium', () => {
     await expect(slot(page, 'meter_photo').getByTestId('uploaded-file').textContent()).resolves.toContain('Accepted');
     await expect(slot(page, 'meter_photo').getByRole('button', { name: /Remove/ }).count()).resolves.toBe(0);
     // Accepted: the drop zone is folded away. Not accepted: it stays open for the next photo.
-    await expect(slot(page, 'meter_photo').locator('.uppy-Dashboard').count()).resolves.toBe(0);
-    await expect(slot(page, 'consumer_unit_photo').locator('.uppy-Dashboard').count()).resolves.toBe(1);
+    await expect(slot(page, 'meter_photo').locator(dropZoneOrWidget).count()).resolves.toBe(0);
+    await expect(slot(page, 'consumer_unit_photo').locator(dropZoneOrWidget).count()).resolves.toBe(1);
     await expect(slot(page, 'consumer_unit_photo').getByTestId('reject-reason').textContent()).resolves.toContain(
       'The office says: The switch labels are not readable',
     );
@@ -149,11 +161,15 @@ describe('photos and documents, in Chromium', () => {
     const page = await context.newPage();
     await signInByLink(page, user.email);
     await openPhotos(page, row.id);
-    const camera = slot(page, 'cutout_photo').getByRole('tab', { name: 'Take a photo' });
+    const camera = slot(page, 'cutout_photo').getByText('Take a photo', { exact: true });
     await expect(camera.isVisible()).resolves.toBe(true);
     // The camera input asks for the rear camera (HTML Media Capture, capture="environment").
     await expect(slot(page, 'cutout_photo').locator('input[name="camera-photo"]').getAttribute('capture')).resolves.toBe('environment');
     await snap(page, 'uploads-touch-390');
+    // Opening the slot brings Uppy's own widget, which offers the camera too.
+    await slot(page, 'cutout_photo').getByTestId('drop-zone').click({ position: { x: 8, y: 8 } });
+    await slot(page, 'cutout_photo').getByRole('tab', { name: 'Take a photo' }).waitFor();
+    await expect(slot(page, 'cutout_photo').locator('input[name="camera-photo"]').getAttribute('capture')).resolves.toBe('environment');
     await context.close();
   });
 

@@ -22,7 +22,7 @@ describe('GET /api/health', () => {
   it('answers 503 when the database cannot be reached', async () => {
     // A second copy of the built app, pointed at a port where no PostgreSQL listens.
     const [appPort, deadDbPort] = [await freePort(), await freePort()];
-    const child = spawn('node', [process.env.APP_ENTRY ?? 'dist/server/entry.mjs'], {
+    const child = spawn('node', [process.env.APP_ENTRY ?? 'scripts/server.mjs'], {
       env: { ...process.env, PORT: String(appPort), HOST: '127.0.0.1', DATABASE_URL: `postgres://x:y@127.0.0.1:${deadDbPort}/none` },
       stdio: 'ignore',
     });

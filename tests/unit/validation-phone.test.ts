@@ -1,5 +1,10 @@
 import { describe, expect, it } from 'vitest';
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { parsePhoneNumberFromString as parseWithEveryCountry } from 'libphonenumber-js';
 import { checkUkPhone } from '../../src/lib/validation/phone';
+import ukMetadata from '../../src/lib/validation/uk-phone-metadata.json';
+import { ukMetadata as cutDown } from '../../scripts/phone-metadata.mjs';
 
 // Source: the UK numbering plan as encoded in libphonenumber-js metadata (ITU-T E.164 output).
 // Example numbers are Ofcom's ranges reserved for drama (0113 496 0xxx, 020 7946 0xxx), from
@@ -38,3 +43,25 @@ describe('checkUkPhone', () => {
     expect(checkUkPhone('0113 496 0000 ext. 12')).toMatchObject({ ok: false, message: expect.stringMatching(/extension/) });
   });
 });
+
+describe('the +44 metadata the app ships', () => {
+  it('is the current libphonenumber-js metadata for calling code 44 (rerun scripts/phone-metadata.mjs after an upgrade)', () => {
+    const require = createRequire(import.meta.url);
+    const full = JSON.parse(readFileSync(require.resolve('libphonenumber-js/metadata.min.json'), 'utf8'));
+    expect(ukMetadata).toEqual(cutDown(full));
+    expect(Object.keys(ukMetadata.countries).sort()).toEqual(['GB', 'GG', 'IM', 'JE']);
+  });
+
+  it('reads UK numbers exactly as the library with every country does', () => {
+    // The library's own example numbers for the four regions sharing +44 (libphonenumber-js examples.mobile.json).
+    const require = createRequire(import.meta.url);
+    const examples = JSON.parse(readFileSync(require.resolve('libphonenumber-js/examples.mobile.json'), 'utf8')) as Record<string, string>;
+    for (const region of ['GB', 'GG', 'IM', 'JE']) {
+      const national = examples[region]!;
+      const reference = parseWithEveryCountry(national, region as 'GB')!;
+      const ours = checkUkPhone(reference.number);
+      expect(ours, region).toEqual({ ok: true, e164: reference.number, display: parseWithEveryCountry(reference.number)!.formatNational() });
+    }
+  });
+});
+

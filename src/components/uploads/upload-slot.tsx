@@ -1,26 +1,13 @@
-// One upload slot: what to photograph (one line), a compact Uppy Dashboard (drag and drop, or
-// the phone's camera) sending to POST /api/cases/:id/uploads with a progress bar per file and
-// Retry on failure, then the files already sent with their review status and Remove.
-import { useEffect, useMemo, useRef, useState } from 'react';
-import Uppy from '@uppy/core';
-// The Dashboard alone: the package index also imports optional plugins that are not installed.
-import Dashboard from '@uppy/react/lib/Dashboard.js';
-import XHRUpload from '@uppy/xhr-upload';
-import '@uppy/core/dist/style.min.css';
-import '@uppy/dashboard/dist/style.min.css';
-import './uppy-theme.css';
-import {
-  formatBytes,
-  largestUploadBytes,
-  maxBytesFor,
-  typesFor,
-  uploadKindInfo,
-  uploadLimits,
-  type UploadItem,
-  type UploadKind,
-} from '../../lib/schemas/uploads';
+// One upload slot: what to photograph (one line), a drop zone, then the files already sent with
+// their review status and Remove. The drop zone starts as plain HTML (drop, choose a file, take
+// a photo); the Uppy widget (upload-widget.tsx: progress bar per file, Retry, resizing) loads
+// only once the customer uses it, so a page full of slots stays light on a phone.
+import { useEffect, useMemo, useRef, useState, type DragEvent } from 'react';
+import { uploadKindInfo, type UploadItem, type UploadKind } from '../../lib/schemas/uploads';
 import { uploadKindStatus } from '../../lib/readiness/upload-status';
-import { errorMessageOf, fetchUploads } from './api';
+import { fetchUploads } from './api';
+import { allowedFileTypes, limitsLine } from './upload-types';
+import type { SlotUppy } from './upload-widget';
 import { AcceptedIcon, ClockIcon, InfoIcon, MissingIcon, NotAcceptedIcon, StopIcon } from '../icons';
 import { UploadedFile } from './uploaded-file';
 
@@ -41,103 +28,78 @@ export type UploadSlotProps = {
   onChange?: (items: UploadItem[]) => void;
 };
 
-type Meta = { kind: UploadKind };
-type Body = Record<string, unknown>;
+type WidgetModule = typeof import('./upload-widget');
+type Widget = { uppy: SlotUppy; mod: WidgetModule };
 
-const EXTENSIONS: Record<string, string[]> = {
-  'image/jpeg': ['.jpg', '.jpeg'],
-  'image/png': ['.png'],
-  'image/webp': ['.webp'],
-  'application/pdf': ['.pdf'],
-};
-
-/** What the file picker offers: the server's types, by MIME type and by extension. */
-function allowedFileTypes(kind: UploadKind): string[] {
-  return typesFor(kind).flatMap((type) => [type, ...(EXTENSIONS[type] ?? [])]);
-}
-
-/** The limits line under the slot, e.g. "JPEG, PNG or WebP up to 15 MB, or PDF up to 10 MB". */
-function limitsLine(kind: UploadKind): string {
-  const photos = `Photos (JPEG, PNG or WebP) up to ${formatBytes(uploadLimits.imageMaxBytes)}`;
-  return typesFor(kind).includes('application/pdf') ? `${photos}, or a PDF up to ${formatBytes(uploadLimits.pdfMaxBytes)}` : photos;
-}
-
-const isPdf = (file: { type?: string; extension?: string }) => file.type === 'application/pdf' || file.extension?.toLowerCase() === 'pdf';
-
-// Only network failures and server trouble are worth an automatic retry; a 4xx will not change.
-const worthRetrying = (xhr: XMLHttpRequest) => xhr.status === 0 || xhr.status === 408 || xhr.status === 429 || xhr.status >= 500;
-
-function createUppy(caseId: string, kind: UploadKind) {
-  const uppy: Uppy<Meta, Body> = new Uppy<Meta, Body>({
-    id: `upload-${kind}`,
-    autoProceed: true,
-    meta: { kind },
-    // A refused upload is shown to the customer in the slot; in the console it is only a warning.
-    logger: { debug: () => {}, warn: (...args: unknown[]) => console.warn(...args), error: (...args: unknown[]) => console.warn(...args) },
-    restrictions: { allowedFileTypes: allowedFileTypes(kind), maxFileSize: largestUploadBytes, maxNumberOfFiles: 5 },
-    // PDFs have a smaller limit than photos; Uppy's own check knows one size only.
-    onBeforeFileAdded: (file) => {
-      const limit = maxBytesFor(isPdf(file) ? 'application/pdf' : 'image/jpeg');
-      if ((file.size ?? 0) <= limit) return true;
-      uppy.info(`${file.name} is larger than ${formatBytes(limit)}, the most we can take for a ${isPdf(file) ? 'PDF' : 'photo'}.`, 'error', 8000);
-      return false;
-    },
-    locale: {
-      strings: {
-        exceedsSize: '%{file} is larger than %{size}, the most we can take. Please send a smaller photo.',
-        youCanOnlyUploadFileTypes: 'We can take these kinds of file here: %{types}',
-        noDuplicates: 'You have already added %{fileName}.',
-        failedToUpload: 'Could not send %{file}',
-      },
-      pluralize: (n: number) => (n === 1 ? 0 : 1),
-    },
+let widgetModule: Promise<WidgetModule> | null = null;
+/** The Uppy widget's module, fetched once per page whichever slot asks first. */
+function loadWidget(): Promise<WidgetModule> {
+  widgetModule ??= import('./upload-widget').catch((err) => {
+    widgetModule = null;
+    throw err;
   });
-  uppy.use(XHRUpload<Meta, Body>, {
-    endpoint: `/api/cases/${caseId}/uploads`,
-    fieldName: 'file',
-    formData: true,
-    allowedMetaFields: ['kind'],
-    limit: 2,
-    timeout: 60_000,
-    shouldRetry: worthRetrying,
-    // Turn the server's error into the message the customer sees beside the file.
-    onAfterResponse: (xhr) => {
-      if (xhr.status < 400) return;
-      let body: unknown = null;
-      try {
-        body = JSON.parse(xhr.responseText);
-      } catch {
-        /* not JSON: use the fallback */
-      }
-      throw new Error(errorMessageOf(body, 'The upload did not go through. Please press Retry.'));
-    },
-  });
-  return uppy;
+  return widgetModule;
 }
 
-const dashboardStrings = (photoOnly: boolean) => ({
-  strings: {
-    dropPasteFiles: photoOnly ? 'Drop a photo here or %{browseFiles}' : 'Drop a photo or PDF here or %{browseFiles}',
-    // On a touch screen Uppy lists "Choose" and "Take a photo" under this line instead.
-    dropPasteImportFiles: photoOnly ? 'Add a photo' : 'Add a photo or a PDF',
-    browseFiles: 'choose a file',
-    myDevice: photoOnly ? 'Choose a photo' : 'Choose a file',
-    takePictureBtn: 'Take a photo',
-    uploadComplete: 'Sent',
-    uploading: 'Sending',
-    complete: 'Sent',
-    uploadFailed: 'Not sent',
-    uploadingXFiles: { 0: 'Sending %{smart_count} file', 1: 'Sending %{smart_count} files' },
-    xFilesSelected: { 0: '%{smart_count} file chosen', 1: '%{smart_count} files chosen' },
-    retry: 'Retry',
-    retryUpload: 'Retry',
-    cancel: 'Cancel',
-    done: 'Done',
-    dropHint: 'Drop your file here',
-    addMore: 'Add another',
-  },
-  pluralize: (n: number) => (n === 1 ? 0 : 1),
-});
+/**
+ * The drop zone before Uppy is loaded: the same three ways in (drop, choose, camera), in plain
+ * HTML. Pressing it, dragging over it or picking a file loads the widget.
+ */
+function DropZone({ kind, photoOnly, touch, opening, onOpen }: { kind: UploadKind; photoOnly: boolean; touch: boolean; opening: boolean; onOpen: (files?: File[]) => void }) {
+  const picked = (input: HTMLInputElement) => {
+    const files = [...(input.files ?? [])];
+    input.value = '';
+    if (files.length) onOpen(files);
+  };
+  const stop = (event: DragEvent) => {
+    event.preventDefault();
+    event.stopPropagation();
+  };
+  return (
+    <div
+      className={`flex ${touch ? 'h-[230px]' : 'h-[160px]'} flex-col items-center justify-center gap-3 rounded-lg border-2 border-dashed border-ground-300 bg-paper p-4 text-center`}
+      data-testid="drop-zone"
+      aria-busy={opening}
+      onClick={(event) => event.target === event.currentTarget && onOpen()}
+      onDragEnter={(event) => {
+        stop(event);
+        onOpen();
+      }}
+      onDragOver={stop}
+      onDrop={(event) => {
+        stop(event);
+        onOpen([...event.dataTransfer.files]);
+      }}
+    >
+      {opening ? (
+        <p className="font-semibold text-ground-800" role="status">Getting the uploader ready…</p>
+      ) : (
+        <>
+          <p className="font-semibold text-ink">{touch ? (photoOnly ? 'Add a photo' : 'Add a photo or a PDF') : photoOnly ? 'Drop a photo here, or' : 'Drop a photo or PDF here, or'}</p>
+          <div className="flex flex-wrap justify-center gap-2">
+            <label className="btn-secondary cursor-pointer focus-within:ring-2 focus-within:ring-ground-600">
+              {photoOnly ? 'Choose a photo' : 'Choose a file'}
+              <input
+                type="file"
+                name="files[]"
+                multiple
+                accept={allowedFileTypes(kind).join(',')}
+                className="sr-only"
+                onChange={(event) => picked(event.currentTarget)}
+              />
+            </label>
+            {touch && (
+              <label className="btn-secondary cursor-pointer focus-within:ring-2 focus-within:ring-ground-600">
+                Take a photo
+                <input type="file" name="camera-photo" accept="image/*" capture="environment" className="sr-only" onChange={(event) => picked(event.currentTarget)} />
+              </label>
+            )}
+          </div>
+        </>
+      )}
+    </div>
+  );
+}
 
 /** The slot's overall standing, in words with an icon. */
 function SlotStatus({ kind, items, required }: { kind: UploadKind; items: UploadItem[]; required: boolean }) {
@@ -166,7 +128,9 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
   const [items, setItems] = useState<UploadItem[]>(initialItems ?? []);
   const [loadError, setLoadError] = useState<string | null>(null);
   const [sendError, setSendError] = useState<string | null>(null);
-  const [uppy, setUppy] = useState<Uppy<Meta, Body> | null>(null);
+  const [widget, setWidget] = useState<Widget | null>(null);
+  const [opening, setOpening] = useState(false);
+  const widgetRef = useRef<Widget | null>(null);
   const [touch, setTouch] = useState(false);
   const [expanded, setExpanded] = useState(false);
   const [busy, setBusy] = useState(false);
@@ -193,35 +157,59 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
     };
   }, [caseId, kind, initialItems]);
 
-  // Uppy touches the DOM, so it is made in the browser only (the slot also renders on the server).
   useEffect(() => {
-    if (!editable) return;
-    const coarse = window.matchMedia?.('(pointer: coarse)').matches ?? false;
-    setTouch(coarse);
-    const instance = createUppy(caseId, kind);
-    instance.on('upload-success', (file, response) => {
-      const item = response.body as unknown as UploadItem;
-      setSendError(null);
-      update((prev) => [...prev.filter((i) => i.id !== item.id), item]);
-      // Leave "Sent" in view for a moment, then clear the Dashboard for the next photo.
-      if (file) setTimeout(() => instance.getFile(file.id) && instance.removeFile(file.id), 1500);
-    });
-    instance.on('upload-error', (_file, error) => setSendError(error.message));
-    instance.on('restriction-failed', (_file, error) => setSendError(error.message));
-    instance.on('file-added', () => {
-      setSendError(null);
-      setBusy(true);
-    });
-    // Keep the Dashboard open while it holds files (sending, sent, or failed and waiting for Retry).
-    instance.on('file-removed', () => setBusy(instance.getFiles().length > 0));
-    instance.on('cancel-all', () => setBusy(false));
-    setUppy(instance);
+    setTouch(window.matchMedia?.('(pointer: coarse)').matches ?? false);
     return () => {
-      instance.destroy();
-      setUppy(null);
+      widgetRef.current?.uppy.destroy();
+      widgetRef.current = null;
     };
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [caseId, kind, editable]);
+  }, []);
+
+  /** Loads the widget (once) and hands it any files already dropped or picked. */
+  const open = (files: File[] = []) => {
+    if (!editable) return;
+    const add = (w: Widget) => {
+      if (files.length === 0) return;
+      try {
+        w.uppy.addFiles(files.map((data) => ({ source: 'drop-zone', name: data.name, type: data.type, data })));
+      } catch (err) {
+        setSendError((err as Error).message);
+      }
+    };
+    if (widgetRef.current) return add(widgetRef.current);
+    setOpening(true);
+    loadWidget().then(
+      (mod) => {
+        if (!widgetRef.current) {
+          const uppy = mod.createUppy(caseId, kind);
+          uppy.on('upload-success', (file, response) => {
+            const item = response.body as unknown as UploadItem;
+            setSendError(null);
+            update((prev) => [...prev.filter((i) => i.id !== item.id), item]);
+            // Leave "Sent" in view for a moment, then clear the Dashboard for the next photo.
+            if (file) setTimeout(() => uppy.getFile(file.id) && uppy.removeFile(file.id), 1500);
+          });
+          uppy.on('upload-error', (_file, error) => setSendError(error.message));
+          uppy.on('restriction-failed', (_file, error) => setSendError(error.message));
+          uppy.on('file-added', () => {
+            setSendError(null);
+            setBusy(true);
+          });
+          // Keep the Dashboard open while it holds files (sending, sent, or failed and waiting for Retry).
+          uppy.on('file-removed', () => setBusy(uppy.getFiles().length > 0));
+          uppy.on('cancel-all', () => setBusy(false));
+          widgetRef.current = { uppy, mod };
+          setWidget(widgetRef.current);
+        }
+        setOpening(false);
+        add(widgetRef.current);
+      },
+      () => {
+        setOpening(false);
+        setSendError('The uploader did not load. Please check your connection and try again.');
+      },
+    );
+  };
 
   const photoOnly = info.accepts === 'photo';
   const { state } = uploadKindStatus(kind, items);
@@ -246,9 +234,9 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
 
       {showDashboard && (
         <div className="gw-uppy" aria-describedby={ids.hint}>
-          {uppy ? (
-            <Dashboard
-              uppy={uppy}
+          {widget ? (
+            <widget.mod.Dashboard
+              uppy={widget.uppy}
               height={touch ? 230 : 160}
               width="100%"
               theme="light"
@@ -260,12 +248,10 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
               showNativePhotoCameraButton={touch}
               nativeCameraFacingMode="environment"
               fileManagerSelectionType="files"
-              locale={dashboardStrings(photoOnly)}
+              locale={widget.mod.dashboardStrings(photoOnly)}
             />
           ) : (
-            <div className="flex h-[160px] items-center justify-center rounded-md border border-dashed border-ground-300 bg-paper text-ground-700">
-              Getting the uploader ready…
-            </div>
+            <DropZone kind={kind} photoOnly={photoOnly} touch={touch} opening={opening} onOpen={open} />
           )}
           <p className="mt-1 text-sm text-ground-700">{limitsLine(kind)}.</p>
         </div>

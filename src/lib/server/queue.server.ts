@@ -78,20 +78,31 @@ function toItem(r: Row): QueueItem {
 }
 
 /**
+ * The one query behind a queue page: its rows, each carrying the total as a window count (one
+ * round trip). `npm run bench` runs its SQL (`.toSQL()`) straight through postgres.js too.
+ * @example const { sql, params } = queuePageQuery(admin, query).toSQL();
+ */
+export function queuePageQuery(user: SessionUser, q: QueueQuery) {
+  const order = q.dir === 'desc' ? desc : asc;
+  const sortKey = sortColumns[q.sort];
+  return db()
+    .select(columns)
+    .from(cases)
+    .innerJoin(users, eq(users.id, cases.customerId))
+    .leftJoin(surveyors, eq(surveyors.id, cases.surveyorId))
+    .where(where(user, q))
+    .orderBy(sql`${order(sortKey as SQL)} nulls last`, desc(cases.invitedAt), asc(cases.id))
+    .limit(q.pageSize)
+    .offset((q.page - 1) * q.pageSize);
+}
+
+/**
  * One page of the queue plus the total matching.
  * @example await queuePage(admin, queueQuerySchema.parse({ light: 'red', sort: 'invited', dir: 'desc' }))
  */
 export async function queuePage(user: SessionUser, q: QueueQuery): Promise<{ items: QueueItem[]; total: number; page: number; pageSize: number }> {
   const filter = where(user, q);
-  const order = q.dir === 'desc' ? desc : asc;
-  const sortKey = sortColumns[q.sort];
-  const base = () =>
-    db().select(columns).from(cases).innerJoin(users, eq(users.id, cases.customerId)).leftJoin(surveyors, eq(surveyors.id, cases.surveyorId)).where(filter);
-  // One round trip: the total rides along on every row as a window count.
-  const rows = await base()
-    .orderBy(sql`${order(sortKey as SQL)} nulls last`, desc(cases.invitedAt), asc(cases.id))
-    .limit(q.pageSize)
-    .offset((q.page - 1) * q.pageSize);
+  const rows = await queuePageQuery(user, q);
   let total = rows[0] ? Number(rows[0].total) : 0;
   if (rows.length === 0 && q.page > 1) {
     // Past the last page there is no row to carry the total: count separately.

@@ -23,11 +23,13 @@ import {
   uploadKindSchema,
   uploadKinds,
   uploadLimits,
+  type ImageType,
   type StoredType,
   type UploadItem,
   type UploadKind,
 } from '../schemas/uploads';
 import { audit } from './audit.server';
+import { reencodePhoto, TooManyPixels, Undecodable } from './images.server';
 import { editableStages } from './case-view.server';
 import { findVisibleCase } from './cases.server';
 import { config } from './config.server';
@@ -51,9 +53,6 @@ type SameKinds = (typeof uploadKindEnum.enumValues)[number] extends UploadKind
   : never;
 const kindsMatch: SameKinds = true;
 void kindsMatch;
-
-// Temporary files are deleted at once; sharp's open-file cache would keep them on disk.
-sharp.cache({ files: 0 });
 
 /** Room for the multipart envelope (boundaries, part headers, the kind field) around the file. */
 const ENVELOPE_BYTES = 64 * 1024;
@@ -398,36 +397,18 @@ type Prepared = {
   sha256: string;
 };
 
-/**
- * Decodes, auto-rotates and re-encodes an image (metadata is dropped by sharp unless asked
- * to keep it), then makes a WebP thumbnail. The sent bytes are never kept.
- */
+/** Re-encodes a photo (see images.server.ts) into scratch files, turning its failures into refusals. */
 async function reencodeImage(input: ScratchFile, type: StoredType): Promise<Prepared> {
-  const limit = uploadLimits.imageMaxPixels;
-  let meta: sharp.Metadata;
-  try {
-    meta = await sharp(input.path, { limitInputPixels: false }).metadata();
-  } catch {
-    throw refuse.undecodable();
-  }
-  const pixels = (meta.width ?? 0) * (meta.height ?? 0);
-  if (pixels > limit) throw refuse.tooManyPixels(Math.round(pixels / 1_000_000));
-  if (!pixels) throw refuse.undecodable();
-
   const main = await ScratchFile.reserve(imageTypes[type as keyof typeof imageTypes]);
   const thumb = await ScratchFile.reserve('webp');
   try {
-    const image = sharp(input.path, { limitInputPixels: limit, failOn: 'error' }).rotate();
-    const encoded =
-      type === 'image/png' ? image.png() : type === 'image/webp' ? image.webp({ quality: 85 }) : image.jpeg({ quality: 85 });
-    const info = await encoded.toFile(main.path);
-    await sharp(main.path).resize({ width: uploadLimits.thumbWidth, withoutEnlargement: true }).webp({ quality: 75 }).toFile(thumb.path);
-    return { main, thumb, type, width: info.width, height: info.height, bytes: info.size, sha256: await sha256Of(main.path) };
+    const done = await reencodePhoto(input.path, type as ImageType, main.path, thumb.path);
+    return { main, thumb, type, ...done };
   } catch (err) {
     await Promise.all([main.remove(), thumb.remove()]);
-    if (isDiskError(err)) throw err;
-    if (err instanceof Error && /pixel limit/i.test(err.message)) throw refuse.tooManyPixels(Math.round(pixels / 1_000_000));
-    throw refuse.undecodable();
+    if (err instanceof TooManyPixels) throw refuse.tooManyPixels(err.megapixels);
+    if (err instanceof Undecodable) throw refuse.undecodable();
+    throw err;
   }
 }
 
