@@ -1,6 +1,6 @@
 // A length in metres with large − / + buttons and a box to type in. The arrow keys in the box
 // step 0.1 m (0.5 m with Shift), like the arrow keys on the drawing.
-import { useEffect, useId, useState, type KeyboardEvent } from 'react';
+import { useId, useState, type KeyboardEvent } from 'react';
 import { MinusIcon, PlusIcon } from '../icons';
 import { roundTo } from '../../lib/readiness/units';
 
@@ -36,25 +36,25 @@ function parseMetres(text: string): number | null {
  */
 export function MetreStepper({ label, value, onChange, min, max, lessLabel, moreLabel, help, step = 0.1, disabled }: Props) {
   const id = useId();
-  const [text, setText] = useState(shown(value));
-  const [error, setError] = useState<string | null>(null);
+  // What the customer is typing, kept only while it belongs to the current value: a change made
+  // elsewhere (the drawing, the buttons) shows at once, in the same render, with no effect to
+  // wait for.
+  const [draft, setDraft] = useState<{ text: string; forValue: number; error: string | null } | null>(null);
+  const current = draft !== null && draft.forValue === roundTo(value, 2) ? draft : null;
+  const text = current ? current.text : shown(value);
+  const error = current ? current.error : null;
 
-  // Follow changes made elsewhere (the drawing, the buttons) unless the box already says it.
-  useEffect(() => {
-    if (parseMetres(text) !== roundTo(value, 2)) {
-      setText(shown(value));
-      setError(null);
-    }
-  }, [value]);
-
-  const commit = (next: number) => onChange(roundTo(Math.min(max, Math.max(min, next)), 2));
+  const commit = (next: number) => {
+    setDraft(null);
+    onChange(roundTo(Math.min(max, Math.max(min, next)), 2));
+  };
 
   const typed = (raw: string) => {
-    setText(raw);
     const parsed = parseMetres(raw);
-    if (parsed === null) return setError(raw.trim() === '' ? null : 'Please type a number of metres, like 2.4.');
-    if (parsed < min || parsed > max) return setError(`Please choose between ${shown(min)} m and ${shown(max)} m.`);
-    setError(null);
+    const here = roundTo(value, 2);
+    if (parsed === null) return setDraft({ text: raw, forValue: here, error: raw.trim() === '' ? null : 'Please type a number of metres, like 2.4.' });
+    if (parsed < min || parsed > max) return setDraft({ text: raw, forValue: here, error: `Please choose between ${shown(min)} m and ${shown(max)} m.` });
+    setDraft({ text: raw, forValue: roundTo(parsed, 2), error: null });
     onChange(roundTo(parsed, 2));
   };
 
@@ -89,10 +89,7 @@ export function MetreStepper({ label, value, onChange, min, max, lessLabel, more
             value={text}
             onChange={(event) => typed(event.target.value)}
             onKeyDown={keys}
-            onBlur={() => {
-              setText(shown(value));
-              setError(null);
-            }}
+            onBlur={() => setDraft(null)}
             aria-invalid={error ? true : undefined}
             aria-describedby={described}
             disabled={disabled}
