@@ -1,6 +1,6 @@
 // Cable reach: whether the charging cable reaches the car's charge port in every way the
 // car is parked, measured on the customer's driveway plan.
-import { carSize, readPlan, reachVerdict, type ReachVerdict } from '../plan';
+import { carSize, otherBaysOccupied, readPlan, reachVerdict, type ReachVerdict } from '../plan';
 import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
 import type { ChargePort, ChargerAnswers, CheckInput, CheckResult, ParkingHabit, ParkingWay } from '../types';
 import { formatNumber, positiveOrNull } from '../units';
@@ -52,12 +52,12 @@ export function checkCableReach({ answers, settings }: CheckInput): CheckResult 
   if (!port) return gapResult('Charge port position not given.', "Tell us where the charge port is on your car.", cable);
   // Another car in the other bay is an obstacle unless the customer said there is only one car.
   const cars = answers.parking?.cars;
-  const otherBaysOccupied = typeof cars !== 'number' || cars >= 2;
+  const othersParked = otherBaysOccupied(cars);
   const verdicts = reachVerdict(plan, cable.metres, habit, {
     port,
     slackMetres: settings.cableSlackMetres,
     portInsetMetres: settings.portInsetMetres,
-    otherBaysOccupied,
+    otherBaysOccupied: othersParked,
   });
   const allReach = verdicts.every((v) => v.reaches);
   return {
@@ -75,7 +75,7 @@ export function checkCableReach({ answers, settings }: CheckInput): CheckResult 
       car: carSize(plan.car),
       slackMetres: settings.cableSlackMetres,
       bays: plan.bays.length,
-      otherBaysOccupied: plan.bays.length > 1 ? otherBaysOccupied : null,
+      otherBaysOccupied: plan.bays.length > 1 ? othersParked : null,
       verdicts,
     },
     source: SOURCE,
