@@ -216,7 +216,7 @@ describe('reach verdict for every port and way (bay A, C at (2.6, 0), slack 1 m)
     // Three bays is more than the plan allows (one or two).
     expect(planProblems(plan({ bays: [bayA, bayB, bayB] }))).toHaveLength(1);
     expect(planProblems({ ...plan(), car: 'big' })).toEqual(["Choose your car's size."]);
-    expect(planProblems({ ...plan(), chargePort: 'roof' })).toEqual(['Pick where the charge port is on your car.']);
+    expect(planProblems({ ...plan(), chargePort: 'roof' })).toEqual(['Pick where the charging socket is on the car.']);
     expect(planProblems({ scribble: true }).length).toBeGreaterThan(1);
   });
 });

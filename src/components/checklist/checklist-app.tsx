@@ -3,7 +3,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { stageForCustomer, stageLabels } from '../../lib/stages';
+import { customerStage } from '@/lib/vocabulary/stages';
 import { ChevronLeftIcon, ChevronRightIcon, InfoIcon, SpinnerIcon, StopIcon, WarningIcon } from '../icons';
 import { loadCase, patchChecklist, type CaseView, type LoadOutcome } from './api-client';
 import { AutosaveQueue, type QueueListener, type SaveStatus } from './autosave-queue';
@@ -269,9 +269,8 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
           <p className="text-sm font-semibold uppercase tracking-wide text-clay-600">Case {view.reference}</p>
           <h1 className="text-2xl font-bold text-ground-900 sm:text-3xl">Your charge point checklist</h1>
           <p className="mt-2 flex flex-wrap items-center gap-x-2 gap-y-1 text-ground-800" data-testid="case-stage">
-            <span>Stage:</span>
-            <span className="rounded-full border border-ground-200 bg-white px-2.5 py-0.5 text-sm font-semibold text-ground-900">{stageLabels[view.stage]}</span>
-            <span className="text-ground-700">{stageForCustomer[view.stage]}</span>
+            <span className="rounded-full border border-ground-200 bg-white px-2.5 py-0.5 text-sm font-semibold text-ground-900" data-testid="stage-word">{customerStage[view.stage].label}</span>
+            <span className="text-ground-700">{customerStage[view.stage].next}</span>
           </p>
         </header>
         <div className="lg:grid lg:grid-cols-[17rem_minmax(0,1fr)] lg:items-start lg:gap-8">

@@ -24,8 +24,8 @@ import {
   type Movable,
   type PlanView,
   type ViewBay,
-} from './plan-view';
-import { sizeClassLabels } from './plan-words';
+} from '@/lib/plan/plan-view';
+import { sizeClassLabels } from '@/lib/vocabulary/plan';
 import { PortPicker } from './port-picker';
 
 type Props = {
