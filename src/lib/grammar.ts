@@ -16,14 +16,25 @@ const VOWEL_NAMED_LETTERS = /^[AEFHILMNORSX](?:[A-Z0-9]|$)/;
  * @example article('order agreement') // 'an'
  * @example article('MPAN') // 'an'
  * @example article('user') // 'a'
+ * @example article('11 kW charge point') // 'an'
  */
 export function article(phrase: string): 'a' | 'an' {
   const word = phrase.trim().replace(/^[“"'‘(]+/, '');
   const first = word.split(/[\s-]/)[0] ?? '';
+  if (/^\d/.test(first)) return numberTakesAn(first) ? 'an' : 'a';
   if (first.length > 1 && first === first.toUpperCase() && /^[A-Z]/.test(first)) return VOWEL_NAMED_LETTERS.test(first) ? 'an' : 'a';
   if (VOWEL_SOUND.test(word)) return 'an';
   if (CONSONANT_SOUND.test(word)) return 'a';
   return /^[aeiou]/i.test(word) ? 'an' : 'a';
+}
+
+// Numbers by how they are read: "an 8 m cable", "an 11 kW charge point", "an 80 A fuse",
+// "an 18 month", but "a 100 A fuse", "a 1.5 m gap".
+function numberTakesAn(figure: string): boolean {
+  const whole = figure.replace(/[,.].*$/, '');
+  if (whole.startsWith('8')) return true;
+  // 11 and 18 ("eleven", "eighteen"), and 11 or 18 thousand, million… read the same way.
+  return /^1[18]$/.test(whole) || (/^1[18]\d+$/.test(whole) && (whole.length - 2) % 3 === 0);
 }
 
 /**

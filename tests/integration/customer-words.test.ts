@@ -4,8 +4,8 @@ import { Client } from '../helpers/http';
 import { newCustomer, newStaff } from '../helpers/people';
 
 // PME earthing with no open soil by the charge point: BS 7671:2018+A2:2022 Regulation 722.411.4.1
-// asks for an open-PEN device or an electrode; the check tells the firm to plan one ("The installer to
-// plan an open-PEN protective device…") — a staff action the customer must not be shown.
+// asks for an open-PEN device or an electrode; the check tells the firm to choose one ("The office or surveyor to
+// record the 722.411.4.1 measure…") — a staff action the customer must not be shown.
 const checklist = {
   supply: { mainFuseAmps: 100, looped: 'no', earthing: 'pme', loads: { showerKw: 0, cooker: false, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false } },
   charger: { cableRunMetres: 8, route: 'through-wall', softGround: false },
@@ -23,7 +23,7 @@ describe('customers see customer words only', () => {
     expect(staff.body.checks.some((x: { staffText?: string }) => typeof x.staffText === 'string')).toBe(true);
     // Every action a check writes is for the firm; none may reach the customer, however worded.
     const staffActions = staff.body.checks.flatMap((x: { actions: string[] }) => x.actions) as string[];
-    expect(staffActions.some((a) => /^the installer to plan an open-PEN/i.test(a))).toBe(true);
+    expect(staffActions.some((a) => /^the (office|installer|surveyor)/i.test(a))).toBe(true);
 
     const answers = [
       await client.json(`/api/cases/${c!.id}/readiness`),

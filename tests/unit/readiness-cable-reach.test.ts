@@ -278,7 +278,7 @@ describe('cable-reach check', () => {
 
   it.each([
     { name: 'no plan', charger: { preference: 'tethered' as const }, port: 'front-left' as const, action: /Draw your driveway plan/ },
-    { name: 'no port', charger: { preference: 'tethered' as const, plan: plan() }, port: null, action: /charge port/ },
+    { name: 'no port', charger: { preference: 'tethered' as const, plan: plan() }, port: null, action: /charging socket/ },
     { name: 'no bay', charger: { preference: 'tethered' as const, plan: plan({ bays: [] }) }, port: 'front-left' as const, action: /parking bay/ },
     // Saved JSON that is not a plan at all: amber, never a crash.
     { name: 'junk plan', charger: { preference: 'tethered' as const, plan: { bays: 'none' } as unknown as DrivewayPlan }, port: 'front-left' as const, action: /./ },

@@ -30,7 +30,7 @@ export function uploadKindStatus(kind: UploadKind, uploads: readonly UploadSumma
 export const uploadKindLabels: Readonly<Record<UploadKind, string>> = Object.freeze({
   meter_photo: 'photo of your electricity meter',
   cutout_photo: 'photo of the main fuse (cut-out)',
-  consumer_unit_photo: 'photo of your consumer unit (fuse box)',
+  consumer_unit_photo: 'photo of your consumer unit',
   charger_location_photo: 'photo of where you would like the charge point',
   parking_evidence: 'proof of your parking space',
   order_agreement: 'order agreement for the car',

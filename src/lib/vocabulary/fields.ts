@@ -47,6 +47,17 @@ const YES_NO: OptionWords[] = [
 
 const NOT_SURE = { customer: 'I’m not sure', staff: 'Not sure' } as const;
 
+// Left and right as seen from the driver's seat.
+const chargePortOptions: OptionWords[] = [
+  { value: 'front-left', customer: 'Front, left', staff: 'Front left' },
+  { value: 'front-centre', customer: 'Front, middle', staff: 'Front centre' },
+  { value: 'front-right', customer: 'Front, right', staff: 'Front right' },
+  { value: 'side-left', customer: 'Left side, towards the back', staff: 'Left side, rear' },
+  { value: 'side-right', customer: 'Right side, towards the back', staff: 'Right side, rear' },
+  { value: 'rear-left', customer: 'Back, left', staff: 'Rear left' },
+  { value: 'rear-right', customer: 'Back, right', staff: 'Rear right' },
+];
+
 const contact = 'your installer to contact you and book the survey';
 const address = 'the survey visit and the network operator’s records';
 const demand = 'working out whether your supply has room for a charge point';
@@ -123,16 +134,7 @@ export const fieldWords = {
     gap: 'where the charging socket is on the car',
     blocks: reach,
     staff: 'Charge port on the car',
-    // Left and right as seen from the driver's seat.
-    options: [
-      { value: 'front-left', customer: 'Front, left', staff: 'Front left' },
-      { value: 'front-centre', customer: 'Front, middle', staff: 'Front centre' },
-      { value: 'front-right', customer: 'Front, right', staff: 'Front right' },
-      { value: 'side-left', customer: 'Left side, towards the back', staff: 'Left side, rear' },
-      { value: 'side-right', customer: 'Right side, towards the back', staff: 'Right side, rear' },
-      { value: 'rear-left', customer: 'Back, left', staff: 'Rear left' },
-      { value: 'rear-right', customer: 'Back, right', staff: 'Rear right' },
-    ],
+    options: chargePortOptions,
   },
   // Your supply
   'supply.mpanCore': {
@@ -280,6 +282,57 @@ export const fieldWords = {
     ],
   },
   'charger.plan': { question: 'Your driveway plan', gap: 'a plan of your driveway', blocks: reach, staff: 'Driveway plan' },
+  // The driveway plan's own choices (src/lib/readiness/plan.ts).
+  'charger.plan.chargePort': {
+    question: 'Where is the charging socket on the car?',
+    gap: 'where the charging socket is on the car',
+    blocks: reach,
+    staff: 'Charge port, as picked on the plan',
+    options: chargePortOptions,
+  },
+  'charger.plan.bays.kind': {
+    question: 'What kind of space is it?',
+    gap: 'what kind of space it is',
+    blocks: '',
+    staff: 'Space',
+    options: [
+      { value: 'driveway', customer: 'Driveway', staff: 'Driveway' },
+      { value: 'garage', customer: 'Garage', staff: 'Garage' },
+    ],
+  },
+  'charger.plan.bays.angle': {
+    question: 'How does the car sit?',
+    gap: 'how the car sits',
+    blocks: reach,
+    staff: 'Bay direction',
+    options: [
+      { value: '0', customer: 'End on to the house', hint: 'front or back to the wall', staff: 'End on to the wall' },
+      { value: '90', customer: 'Along the house', hint: 'side to the wall', staff: 'Along the wall' },
+    ],
+  },
+  // Saved from the wall looking out: the plan's 'left' end is on the right seen from the street.
+  'charger.plan.bays.entry': {
+    question: 'Which end do you drive in at?',
+    gap: 'which end you drive in at',
+    blocks: reach,
+    staff: 'Drive-in end (seen from the street)',
+    options: [
+      { value: 'left', customer: 'From the right', staff: 'Right end' },
+      { value: 'right', customer: 'From the left', staff: 'Left end' },
+    ],
+  },
+  'charger.plan.car.sizeClass': {
+    question: 'How big is the car?',
+    gap: 'the size of the car',
+    blocks: reach,
+    staff: 'Car size',
+    options: [
+      { value: 'small', customer: 'Small', staff: 'Small' },
+      { value: 'medium', customer: 'Medium', staff: 'Medium' },
+      { value: 'large', customer: 'Large', staff: 'Large' },
+      { value: 'custom', customer: 'Your own measurements', staff: 'Measured' },
+    ],
+  },
 } as const satisfies Record<string, FieldWords>;
 
 export type FieldPath = keyof typeof fieldWords;

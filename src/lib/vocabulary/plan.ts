@@ -7,7 +7,8 @@ import type { ChargePort, ParkingWay } from '@/lib/readiness/types';
 import { formatNumber, roundTo } from '@/lib/readiness/units';
 import { fieldWords } from './fields';
 
-const optionMap = <K extends string>(options: readonly { value: string; customer: string; staff: string }[], audience: 'customer' | 'staff') =>
+/** A field's options as value → words for one audience. */
+export const optionMap = <K extends string>(options: readonly { value: string; customer: string; staff: string }[], audience: 'customer' | 'staff') =>
   Object.fromEntries(options.map((o) => [o.value, o[audience]])) as Record<K, string>;
 
 /** Port positions as the customer reads them (left and right from the driver's seat). */
@@ -25,11 +26,7 @@ const NBSP = '\u00a0';
 /** A way of parking after "when you …". */
 export const wayPhrases: Record<ParkingWay, string> = { 'nose-in': 'park nose in', 'reverse-in': 'reverse in' };
 
-export const sizeClassLabels: Record<Exclude<CarSizeClass, 'custom'>, string> = {
-  small: 'Small',
-  medium: 'Medium',
-  large: 'Large',
-};
+export const sizeClassLabels: Record<Exclude<CarSizeClass, 'custom'>, string> = optionMap<CarSizeClass>(fieldWords['charger.plan.car.sizeClass'].options, 'customer');
 
 /**
  * A length for reading: one decimal place, or two when one would hide which side of the cable

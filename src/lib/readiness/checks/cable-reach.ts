@@ -1,5 +1,6 @@
 // Cable reach: whether the charging cable reaches the car's charge port in every way the
 // car is parked, measured on the customer's driveway plan.
+import { withArticle } from '../../grammar';
 import { carSize, readPlan, reachVerdict, type ReachVerdict } from '../plan';
 import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
 import type { ChargePort, ChargerAnswers, CheckInput, CheckResult, ParkingHabit } from '../types';
@@ -77,7 +78,7 @@ export function checkCableReach({ answers, settings }: CheckInput): CheckResult 
 
 function cableWords(cable: { metres: number; source: CableSource }): string {
   if (cable.source === 'customer-cable-assumed') return `your own charging cable (we've assumed ${formatNumber(cable.metres)} m)`;
-  if (cable.source === 'tether-assumed') return `a ${formatNumber(cable.metres)} m tethered cable (the usual length)`;
+  if (cable.source === 'tether-assumed') return `${withArticle(`${formatNumber(cable.metres)} m tethered cable`)} (the usual length)`;
   return `the ${formatNumber(cable.metres)} m tethered cable`;
 }
 
