@@ -115,8 +115,8 @@ describe('GET /api/cases/:id/pack.pdf', () => {
     // Open gaps: the missing connector answer and the missing consumer unit photo, in the customer's words,
     // and the cable-run check, amber because a buried 32 m run is long and costly (common practice).
     expect(all).toContain('the car’s charging plug type');
-    expect(all).toContain('Upload a photo of your consumer unit (fuse box).');
-    expect(all).toContain('Cable from your fuse box to the charger');
+    expect(all).toContain('Upload a photo of your consumer unit.');
+    expect(all).toContain('Cable from your consumer unit to the charge point');
     // The cautions, word for word as the trade reference gives them ("Cautions to show").
     expect(all).toContain('Never open the cut-out, the meter or the consumer unit, or remove covers: photos only.');
     expect(all).toContain('Only the network operator (or its agent) may change the main fuse or the cut-out.');
@@ -151,7 +151,7 @@ describe('the pack page /surveys/cases/:id', () => {
     expect(html).toContain(`<strong data-testid="recommended-size">${RECOMMENDED}</strong>`);
     expect(html).toMatch(/data-testid="cable-basis">Ib 32 A ≤ In 32 A ≤ Iz; 70 °C terminals; method D/);
     expect(html).toMatch(/data-testid="earthing-measure">Not recorded yet/);
-    expect(html).toContain('Upload a photo of your consumer unit (fuse box).');
+    expect(html).toContain('Upload a photo of your consumer unit.');
     expect(html).toContain('Never open the cut-out, the meter or the consumer unit, or remove covers: photos only.');
     expect(html).toMatch(/@page\s*\{\s*size:\s*A4;\s*margin:\s*15mm;?\s*\}/);
     // Photos as thumbnails at least 300 px wide (the stored thumbnails are 480 px).
@@ -176,7 +176,7 @@ describe('the pack page /surveys/cases/:id', () => {
     const mine = words(await (await surveyor.fetch('/surveys')).text());
     expect(mine).toContain(`data-reference="${reference}"`);
     expect(mine).toContain('21 Weaver Street');
-    expect(mine).toContain('Cable from your fuse box to the charger');
+    expect(mine).toContain('Cable from your consumer unit to the charge point');
     const theirs = await (await otherSurveyor.fetch('/surveys')).text();
     expect(theirs).not.toContain(reference);
   });

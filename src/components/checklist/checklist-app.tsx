@@ -25,9 +25,9 @@ type Props = { caseId: string };
 const intros: Record<StepId, string> = {
   about: 'Who we’re talking to, and the home the charge point is for.',
   vehicle: 'The car decides the plug and how far the cable must reach. If it hasn’t arrived yet, answer from your order.',
-  supply: 'A few details about the electricity coming into your home. Most are on a bill, or can be read by looking — never touching — at the meter and fuse box.',
+  supply: 'A few details about the electricity coming into your home. Most are on a bill, or can be read by looking — never touching — at the meter and consumer unit.',
   parking: 'Where the car will stand while it charges.',
-  charger: 'Where you’d like the charge point and how a cable could reach it. Rough answers are fine: the surveyor checks everything.',
+  charger: 'Where you’d like the charge point and how a cable could reach it. Rough answers are fine: your installer checks everything at the survey.',
   review: 'Check your answers, fill any gaps you can, then send them to your installer.',
 };
 
