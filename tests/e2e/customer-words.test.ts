@@ -51,7 +51,7 @@ const rawIds = [
   ...new Set([
     ...allOptions.map((o) => o.value).filter((v) => /[-_]|[a-z]\d/.test(v)),
     ...stages.filter((s) => s.includes('_')),
-    ...uploadKinds,
+    ...uploadKinds.filter((k) => k.includes('_')),
     'notify-after',
     'apply-before',
     'supply-headroom',
