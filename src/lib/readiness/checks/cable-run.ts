@@ -274,7 +274,7 @@ function customerText(
   ratingChosen: boolean,
 ): string {
   if (recommended === null) {
-    return `A cable run of about ${formatNumber(metres)} m is longer than any of the usual cable sizes can manage safely without losing too much voltage. The surveyor will look at another spot for the charge point or another way to feed it.`;
+    return `A cable run of about ${formatNumber(metres)} m is longer than any of the usual cable sizes can manage safely without losing too much voltage. Your installer will look at another spot for the charge point or another way to feed it.`;
   }
   const base = `A cable run of about ${formatNumber(metres)} m ${routeWords(route)} looks workable.`;
   if (light === 'green') return base;

@@ -169,7 +169,7 @@ function customerText(
   measure: EarthingMeasure | null,
   test: ElectrodeTest | null,
 ): string {
-  if (earthing === 'tns') return 'Your home has a type of earthing that suits an outdoor charge point without extra measures. The surveyor will confirm it.';
+  if (earthing === 'tns') return 'Your home has a type of earthing that suits an outdoor charge point without extra measures. Your installer will confirm it.';
   if (test?.passes === false) return 'The earth rod tested did not give a low enough reading for the safety switch that protects it. Your installer will improve the earth rod or change the protection before the charge point is used.';
   if (test?.possiblyUnstable) return 'The earth rod works, but its reading is high enough that it may change with the weather. Your installer may add to it or check it again.';
   if (earthing === 'tt') {
@@ -179,7 +179,7 @@ function customerText(
   const intro =
     earthing === 'pme'
       ? 'Your home has the most common type of earthing (PME), which needs one extra safety measure for an outdoor charge point: an earth rod in open ground, or a charge point with built-in protection. Your installer will choose which.'
-      : "We don't know how your home is earthed yet. Most homes have a type (PME) that needs one extra safety measure for an outdoor charge point: an earth rod in open ground, or a charge point with built-in protection. The surveyor will check.";
+      : "We don't know how your home is earthed yet. Most homes have a type (PME) that needs one extra safety measure for an outdoor charge point: an earth rod in open ground, or a charge point with built-in protection. Your installer will check.";
   return `${intro} ${groundText(ground, metres, settings)} ${COVERS_CAUTION}`;
 }
 
