@@ -3,7 +3,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
-import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink } from './browser';
+import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink, snapBoth } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 
@@ -22,16 +22,6 @@ async function waitSaved(page: Page) {
   await expect.poll(() => status(page), { timeout: 10_000 }).toBe('Saved');
 }
 
-/** Screenshots at phone and desktop width, then back to the phone (from the top, so the
- * desktop sidebar, which sticks while scrolling, is drawn where a visitor first sees it). */
-async function snapBoth(page: Page, name: string) {
-  await page.evaluate(() => window.scrollTo(0, 0));
-  await snap(page, `${name}-390`);
-  await page.setViewportSize(DESKTOP);
-  await page.evaluate(() => window.scrollTo(0, 0));
-  await snap(page, `${name}-1280`);
-  await page.setViewportSize(PHONE);
-}
 
 async function nextStep(page: Page, title: string) {
   await page.getByTestId('step-next').click();

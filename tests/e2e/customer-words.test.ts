@@ -6,7 +6,7 @@
 // shown once. Screenshots at 390 and 1280 px land in screenshots/customer-words-*.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { close, DESKTOP, newPage, PHONE, problemsOf, signInByLink, snap, waitForIslands } from './browser';
+import { close, newPage, PHONE, problemsOf, signInByLink, snapBoth, waitForIslands } from './browser';
 import { db, schema } from '../helpers/db';
 import { messagesTo } from '../helpers/mail';
 import { newStaff } from '../helpers/people';
@@ -38,7 +38,7 @@ const allOptions = Object.values(fieldWords).flatMap((w) => ('options' in w ? (w
 // Every string a customer is meant to read from the vocabulary: staff words found among these
 // are shared words ("Yes", "Type 2"), not staff-only ones.
 const customerVocabulary = Object.values(fieldWords)
-  .flatMap((w) => [w.question, w.gap, w.blocks])
+  .flatMap((w): string[] => [w.question, w.gap, w.blocks])
   .concat(allOptions.flatMap((o) => [o.customer, o.hint ?? '']))
   .join('\n')
   .toLowerCase();
@@ -95,7 +95,7 @@ async function walk(page: Page, email: string, shots: string | null): Promise<{ 
   await signIn(page, email);
   await page.goto('/my');
   walked.push({ page: `${email} /my`, text: await page.locator('body').innerText() });
-  if (shots) await both(page, `${shots}-home`);
+  if (shots) await snapBoth(page, `${shots}-home`);
   const caseIds = await page.locator('a[href^="/my/cases/"]').evaluateAll((links) => [...new Set(links.map((a) => a.getAttribute('href')!.split('/')[3]!))]);
   for (const id of caseIds) {
     await page.goto(`/my/cases/${id}`);
@@ -103,7 +103,7 @@ async function walk(page: Page, email: string, shots: string | null): Promise<{ 
     await page.locator('#step-heading').waitFor();
     for (const step of steps) {
       walked.push({ page: `${email} checklist ${step.id}`, text: await stepText(page, id, step.id, step.title) });
-      if (shots && (step.id === 'review' || step.id === 'vehicle' || step.id === 'supply')) await both(page, `${shots}-step-${step.id}`);
+      if (shots && (step.id === 'review' || step.id === 'vehicle' || step.id === 'supply')) await snapBoth(page, `${shots}-step-${step.id}`);
     }
     await page.goto(`/my/cases/${id}/photos`);
     await waitForIslands(page);
@@ -112,18 +112,9 @@ async function walk(page: Page, email: string, shots: string | null): Promise<{ 
     await waitForIslands(page);
     await page.getByTestId('plan-heading').waitFor();
     walked.push({ page: `${email} plan`, text: await page.locator('body').innerText() });
-    if (shots) await both(page, `${shots}-plan`);
+    if (shots) await snapBoth(page, `${shots}-plan`);
   }
   return { walked, caseIds };
-}
-
-async function both(page: Page, name: string) {
-  await page.evaluate(() => window.scrollTo(0, 0));
-  await snap(page, `${name}-390`);
-  await page.setViewportSize(DESKTOP);
-  await page.evaluate(() => window.scrollTo(0, 0));
-  await snap(page, `${name}-1280`);
-  await page.setViewportSize(PHONE);
 }
 
 /** What staff read about a case and a customer must not: the checks' trade words and every action. */

@@ -25,7 +25,7 @@ import {
   type PlanView,
   type ViewBay,
 } from '@/lib/plan/plan-view';
-import { optionWords } from '@/lib/vocabulary/fields';
+import { optionHint, optionWords } from '@/lib/vocabulary/fields';
 import { sizeClassLabels } from '@/lib/vocabulary/plan';
 import { PortPicker } from './port-picker';
 
@@ -211,8 +211,8 @@ function BayControls({ view, bay, index, onChange, active, onSelect, readOnly }:
       <ChoiceGroup<'facing' | 'along'>
         legend="How does the car sit?"
         options={[
-          { value: 'facing', label: optionWords('charger.plan.bays.angle', 0, 'customer')!, hint: 'front or back to the wall' },
-          { value: 'along', label: optionWords('charger.plan.bays.angle', 90, 'customer')!, hint: 'side to the wall' },
+          { value: 'facing', label: optionWords('charger.plan.bays.angle', 0, 'customer')!, hint: optionHint('charger.plan.bays.angle', 0) },
+          { value: 'along', label: optionWords('charger.plan.bays.angle', 90, 'customer')!, hint: optionHint('charger.plan.bays.angle', 90) },
         ]}
         value={bay.along ? 'along' : 'facing'}
         onChange={(choice) => set({ along: choice === 'along' })}

@@ -403,3 +403,12 @@ export function optionWords(path: string, value: string | number | boolean, audi
   const option = all[path]?.options?.find((o) => o.value === key);
   return option ? option[audience] : null;
 }
+
+/**
+ * The customer's hint under one option, if it has one.
+ *
+ * @example optionHint('charger.plan.bays.angle', 90) // 'side to the wall'
+ */
+export function optionHint(path: string, value: string | number): string | undefined {
+  return all[path]?.options?.find((o) => o.value === String(value))?.hint;
+}
