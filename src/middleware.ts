@@ -5,6 +5,7 @@
 // 2. paths with doubled slashes are refused; a declared body over 1 MB is refused before anything reads it;
 // 3. session: `locals.user` is the active user whose session has not been ended, or null;
 // 4. security headers on every answer.
+import { countOf } from './lib/grammar';
 import { defineMiddleware, sequence } from 'astro:middleware';
 import { bodyRefusal } from './lib/server/body-limit.server';
 import { isDatabaseUnavailable } from './lib/server/db-errors.server';
@@ -16,7 +17,7 @@ import { findSessionUser } from './lib/server/sessions.server';
 
 function tooMany(seconds: number): Response {
   const res = errorResponse(
-    new HttpError(429, 'rate_limited', `Too many sign-in attempts. Please wait ${Math.ceil(seconds / 60)} minutes and try again.`),
+    new HttpError(429, 'rate_limited', `Too many sign-in attempts. Please wait ${countOf(Math.ceil(seconds / 60), 'minute')} and try again.`),
   );
   res.headers.set('Retry-After', String(seconds));
   return res;

@@ -132,7 +132,7 @@ describe('the driveway plan, in Chromium', () => {
     await expect(verdictText(page, 'nose-in')).resolves.toContain('Doesn’t reach when you park nose in — needs 7.7 m');
     await expect(verdictText(page, 'reverse-in')).resolves.toContain('Doesn’t reach when you reverse in — needs 10.6 m');
     await expect(page.getByTestId('plan-verdict-nose-in-1').count()).resolves.toBe(0);
-    await page.getByTestId('plan-way-toggle').getByText('Reversed in').click();
+    await page.getByTestId('plan-way-toggle').getByText('Reversing in').click();
     await expect(page.getByTestId('plan-cable').count()).resolves.toBe(1);
     await page.locator('[data-testid="plan-save-status"][data-status="saved"]').waitFor({ timeout: 10_000 });
     await snap(page, 'plan-two-bays-390');

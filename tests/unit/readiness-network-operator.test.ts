@@ -101,6 +101,6 @@ describe('network-operator light and figures', () => {
 
   it('says "until we know more" when only unknowns point to applying first', () => {
     expect(check({ fuse: null, looped: 'no', loads: declared }).customerText).toMatch(/^Until we know a little more/);
-    expect(check({ fuse: 100, looped: 'yes', loads: declared }).customerText).toMatch(/^Before the charger is connected/);
+    expect(check({ fuse: 100, looped: 'yes', loads: declared }).customerText).toMatch(/^Before the charge point is connected/);
   });
 });

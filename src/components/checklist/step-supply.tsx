@@ -130,7 +130,7 @@ export function SupplyStep({ caseId }: { caseId: string }) {
       <fieldset className="space-y-5 rounded-lg border border-ground-100 p-4">
         <legend className="float-left w-full text-lg font-bold text-ground-900">Big electrical loads already in your home</legend>
         <p className="field-help clear-both !mt-1 pt-1">
-          These add up with a charger at busy times. Give 0 for anything you don’t have. A rating is usually on a label on the front or
+          These add up with a charge point at busy times. Give 0 for anything you don’t have. A rating is usually on a label on the front or
           underside of the appliance, or in its manual.
         </p>
         <NumberField path="supply.loads.showerKw" placeholder="e.g. 9.5" help="An electric shower heats its own water, usually 7 to 10.5 kW." />
@@ -143,7 +143,7 @@ export function SupplyStep({ caseId }: { caseId: string }) {
         <ChoiceField
           path="supply.loads.socketCircuits"
           columns={3}
-          help="Look at the labels beside the switches in your fuse box (consumer unit), or in your photo of it: count the ones marked sockets, ring or power. Don’t open anything."
+          help="Look at the labels beside the switches in your consumer unit, or in your photo of it: count the ones marked sockets, ring or power. Don’t open anything."
         />
       </fieldset>
       <StepEvidence caseId={caseId} kinds={['meter_photo', 'cutout_photo', 'consumer_unit_photo']} heading="Photos of your supply (photos only — never open anything)" />

@@ -6,7 +6,7 @@ import type { DrivewayPlan as PlanValue } from '../../lib/readiness/plan';
 import type { ChargePort, ChargerPreference, ParkingHabit } from '../../lib/readiness/types';
 import { DrivewayPlan, type PlanSettings } from './driveway-plan';
 import { retryDelayMs, savePlan, type PlanCaseView } from './plan-save';
-import { defaultPlan, readSavedPlan } from './plan-view';
+import { defaultPlan, readSavedPlan } from '@/lib/plan/plan-view';
 
 export type DrivewayPlanEditorProps = {
   caseId: string;

@@ -9,8 +9,8 @@ import { defaultReadinessSettings, type ReadinessSettings } from '../../lib/read
 import type { ChargePort, ChargerPreference, ParkingHabit, ParkingWay } from '../../lib/readiness/types';
 import { PlanControls } from './plan-controls';
 import { PlanDrawing } from './plan-drawing';
-import { bayName, defaultPlan, planToView, viewToPlan, type Movable, type PlanView } from './plan-view';
-import { wayLabels } from './plan-words';
+import { bayName, defaultPlan, planToView, viewToPlan, type Movable, type PlanView } from '@/lib/plan/plan-view';
+import { wayLabels } from '@/lib/vocabulary/plan';
 import { ReachSummary } from './reach-summary';
 
 /** The settings the plan measures with; the rest of the readiness settings do not matter here. */
@@ -172,7 +172,7 @@ function Legend() {
         <svg viewBox="0 0 16 16" className="h-4 w-4" aria-hidden="true">
           <circle cx="8" cy="8" r="5.5" className="fill-ink stroke-white" strokeWidth="2" />
         </svg>
-        Charge port on the car
+        Charging socket on the car
       </li>
       <li className="flex items-center gap-1.5">
         <svg viewBox="0 0 28 8" className="h-2 w-7" aria-hidden="true">

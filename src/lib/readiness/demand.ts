@@ -2,6 +2,7 @@
 // A2, each rule named), plus the new charger at full load (722.311), per phase on a
 // three-phase supply. A measured maximum demand recorded by the office or surveyor replaces
 // the estimate of the existing loads. Shared by supply-headroom, network-operator and timing.
+import { countOf } from '../grammar';
 import { chargerRating, knownPhases, type ChargerRating } from './charger';
 import { COMMON_PRACTICE, type ReadinessSettings } from './settings';
 import type { ChecklistAnswers, LoadAnswers, SiteMeasures } from './types';
@@ -251,7 +252,7 @@ function socketItem(socketCircuits: LoadAnswers['socketCircuits'], settings: Rea
   const counted = typeof socketCircuits === 'number';
   const circuits = counted ? socketCircuits : ifUnknown;
   const declared = counted
-    ? `${circuits} circuit${circuits === 1 ? '' : 's'} counted, each assumed ${settings.socketCircuitAmps} A (${COMMON_PRACTICE})`
+    ? `${countOf(circuits, 'circuit')} counted, each assumed ${settings.socketCircuitAmps} A (${COMMON_PRACTICE})`
     : `${socketCircuits === 'unsure' ? 'not sure' : 'not answered'}: ${circuits} assumed, each ${settings.socketCircuitAmps} A (${COMMON_PRACTICE})`;
   return {
     load: 'Socket-outlet circuits',

@@ -316,7 +316,7 @@ const problemBySection: Record<string, string> = {
   chargePoint: 'Mark where you would like the charge point.',
   bays: 'Give each parking bay a position, width and length (one or two bays).',
   car: "Choose your car's size.",
-  chargePort: 'Pick where the charge port is on your car.',
+  chargePort: 'Pick where the charging socket is on the car.',
 };
 
 /**

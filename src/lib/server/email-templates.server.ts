@@ -1,4 +1,6 @@
 // Server-only: Groundwork's e-mails, each as HTML with a plain-text part, in one voice.
+import { countOf } from '../grammar';
+import { staffLabel } from '../vocabulary/fields';
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
@@ -42,10 +44,10 @@ export function signInLinkEmail(url: string): { subject: string; text: string; h
   };
 }
 
-export function caseSubmittedEmail(input: { reference: string; customer: string; address: string; gaps: { title: string; missing: string[] }[]; url: string }) {
-  const gapLines = input.gaps.map((g) => `${g.title}: ${g.missing.join(', ')}`);
+export function caseSubmittedEmail(input: { reference: string; customer: string; address: string; gaps: { section: string; title: string; missing: string[] }[]; url: string }) {
+  const gapLines = input.gaps.map((g) => `${g.title}: ${[...new Set(g.missing.map((f) => staffLabel(`${g.section}.${f}`)))].join(', ')}`);
   return {
-    subject: `Case ${input.reference} sent for review${input.gaps.length ? ` (${input.gaps.length} sections with gaps)` : ''}`,
+    subject: `Case ${input.reference} sent for review${input.gaps.length ? ` (${countOf(input.gaps.length, 'section')} with gaps)` : ''}`,
     ...renderEmail(`${input.customer} has sent their case for review`, [
       { kind: 'p', text: `Case ${input.reference}, ${input.address || 'address not given yet'}.` },
       ...(gapLines.length

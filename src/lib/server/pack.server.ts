@@ -24,8 +24,8 @@ import { earthingLabels, outcomeLabels, type ConfirmedEarthing, type Measurement
 import { uploadKindInfo, type UploadKind } from '../schemas/uploads';
 import { stageLabels, type StageId } from '../stages';
 import { checkMpanCore } from '../validation/mpan';
-import { answerLabel, answerValue } from '../../components/surveyor/pack-words';
-import { planSketch, type PlanSketch } from '../../components/surveyor/plan-sketch';
+import { planSketch, type PlanSketch } from '@/lib/plan/plan-sketch';
+import { staffAnswer, staffLabel } from '@/lib/vocabulary';
 import { listNotes } from './case-records.server';
 import { findVisibleCase } from './cases.server';
 import { db } from './db.server';
@@ -321,7 +321,7 @@ function answerSections(checklist: Checklist, outcome: PackOutcome | null): Pack
 }
 
 function answer(path: string, owner: Record<string, unknown>, key: string): PackAnswer {
-  return { path, label: answerLabel(path), value: answerValue(path, owner[key], key in owner) };
+  return { path, label: staffLabel(path), value: staffAnswer(path, owner[key], key in owner) };
 }
 
 // A car not registered yet is identified by its VIN: say so rather than "not answered".

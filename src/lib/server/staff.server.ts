@@ -1,4 +1,5 @@
 // Server-only: staff accounts — invite (with a set-your-password link), deactivate, set password.
+import { withArticle } from '../grammar';
 import { createHash, randomBytes } from 'node:crypto';
 import { and, asc, eq, gt, inArray } from 'drizzle-orm';
 import { users, verificationTokens } from '../../db/schema';
@@ -46,7 +47,7 @@ export async function inviteStaff(admin: SessionUser, input: { name: string; ema
     to: input.email,
     subject: 'You have a Groundwork staff account',
     ...renderEmail(`Welcome to Groundwork, ${input.name.split(' ')[0]}`, [
-      { kind: 'p', text: `${admin.name ?? 'An admin'} has given you a ${input.role} account. Choose a password to start.` },
+      { kind: 'p', text: `${admin.name ?? 'An admin'} has given you ${withArticle(`${input.role} account`)}. Choose a password to start.` },
       { kind: 'button', text: 'Choose my password', href: url },
       { kind: 'p', text: 'The link works once and lasts 7 days.' },
     ]),

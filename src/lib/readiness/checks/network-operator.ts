@@ -50,12 +50,12 @@ function regionOf(mpanCore: string | null | undefined): string | null {
 function customerText(decision: NetworkRouteDecision, settings: ReadinessSettings): string {
   if (decision.route === 'notify-after') {
     const pending = decision.settled ? '' : ' We still need one or two answers about your supply to be sure.';
-    return `Your installer can fit the charger and then let your local network operator know within ${settings.notifyWithinDays} days — nothing for you to arrange.${pending}`;
+    return `Your installer can fit the charge point and then let your local network operator know within ${settings.notifyWithinDays} days — nothing for you to arrange.${pending}`;
   }
   const onlyUnknowns = !decision.applyBeforeKnown;
   const need = onlyUnknowns
-    ? 'Until we know a little more about your supply, we plan as if your installer must apply to your local network operator (the company that runs the cables to your street) before the charger is connected.'
-    : 'Before the charger is connected, your installer needs to apply to your local network operator (the company that runs the cables to your street).';
+    ? 'Until we know a little more about your supply, we plan as if your installer must apply to your local network operator (the company that runs the cables to your street) before the charge point is connected.'
+    : 'Before the charge point is connected, your installer needs to apply to your local network operator (the company that runs the cables to your street).';
   return `${need} That can take from under a week to about a month, so we start early — there is nothing you need to arrange yourself.`;
 }
 
