@@ -161,7 +161,7 @@ function CableRun({ f }: { f: Figures }) {
       )}
       {ref70?.sizes && ref70.sizes.length > 0 && (
         <details className="mt-2 text-sm">
-          <summary className="cursor-pointer text-ground-700">70 °C thermoplastic drop comparison (from memory, not used to recommend)</summary>
+          <summary className="cursor-pointer text-ground-700">70 °C thermoplastic drop comparison (not used to recommend; confirm against the printed table)</summary>
           <MiniTable
             caption={ref70.table ?? 'Table 4D4B'}
             head={['Size', 'mV/A/m', 'Drop', 'Drop %']}
@@ -216,8 +216,8 @@ const routeWords: Record<string, string> = {
 };
 
 const networkRouteWords: Record<string, string> = {
-  'notify-after': 'Connect and notify',
-  'apply-before': 'Apply to connect',
+  'notify-after': 'Connect & Notify',
+  'apply-before': 'Apply to Connect',
 };
 
 function NetworkOperator({ f }: { f: Figures }) {

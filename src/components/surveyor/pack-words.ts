@@ -158,8 +158,8 @@ export const kindTitle = (kind: UploadKind) => uploadKindInfo[kind]?.title ?? ki
 export const uploadStateWords = { accepted: 'Accepted', waiting: 'Waiting for review', rejected: 'Rejected', missing: 'Missing' } as const;
 
 export const networkRouteWords: Record<string, string> = {
-  'notify-after': 'Connect and notify: install, then notify the network operator within the notice period',
-  'apply-before': 'Apply to connect: apply to the network operator before connecting',
+  'notify-after': 'Connect & Notify: install, then notify the network operator within the notice period',
+  'apply-before': 'Apply to Connect: apply to the network operator before connecting',
 };
 
 /**
