@@ -2,6 +2,7 @@
 // the checklist shows. Built from the same rules as the readiness checks.
 import { sectionProgress, type Checklist } from './schemas/checklist';
 import { fieldLabel } from './field-labels';
+import { endSentence, quoted } from './punctuation';
 import { requiredUploadKinds } from './readiness/checks/documents';
 import { uploadKindLabels, uploadKindStatus } from './readiness/upload-status';
 import type { ChecklistAnswers, UploadSummary } from './readiness/types';
@@ -25,7 +26,7 @@ export function customerGaps(checklist: Checklist, uploads: readonly UploadSumma
       gaps.push({
         section: 'uploads',
         title: 'Photos and documents',
-        text: `Send a new ${uploadKindLabels[kind]}${status.reason ? ` — your installer said: “${status.reason}”` : ''}.`,
+        text: endSentence(`Send a new ${uploadKindLabels[kind]}${status.reason ? ` — your installer said: ${quoted(status.reason)}` : ''}`),
       });
     }
   }
