@@ -89,7 +89,7 @@ function Section({ id, title, checklist, progress, warnings, note }: { id: Secti
  *
  * @example officeWarnings({ 'vehicle.registration': '…not in use yet…' }, { vehicle: { registration: 'GW29 EVA' } }, { registration: 'GW29 EVA' }) // {}
  */
-export function officeWarnings(warnings: Record<string, string>, checklist: Checklist, lookup: Pick<VehicleLookupInfo, 'registration'> | null | undefined): Record<string, string> {
+export function officeWarnings(warnings: Record<string, string>, checklist: Checklist, lookup: { registration: string } | null | undefined): Record<string, string> {
   const plate = checklist.vehicle?.registration;
   if (!lookup || !plate || lookup.registration !== plate || !warnings['vehicle.registration']) return warnings;
   const { 'vehicle.registration': _onRecord, ...rest } = warnings;
