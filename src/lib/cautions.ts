@@ -7,14 +7,17 @@ import type { UploadKind } from './readiness/types';
 export const caution = Object.freeze({
   /** Word for word what the pack has always printed; keep it so. */
   photosOnly: 'Never open the cut-out, the meter or the consumer unit, or remove covers: photos only.',
-  consumerUnitClosed: 'A photo of the consumer unit (fuse box) with its cover closed is just what we need.',
+  consumerUnitClosed: 'There is no need to open the consumer unit (fuse box): a photo with its cover closed is just what we need.',
   meterCupboard: 'Opening the meter cupboard door to look and take photos is fine; don’t touch anything inside it.',
   applianceRating: 'Never take the cover off an appliance to read its rating: look in its manual or on the label on the outside.',
   // 105 reaches the local electricity network operator in England, Scotland and Wales, free from
   // most phones (ENA, "Power Cut? Call 105", launched 2016). Northern Ireland has its own number.
   danger:
     'If you see damage, scorching or exposed wires, or smell burning, keep away and call 105, the free power-cut and emergency number for the electricity network in Great Britain. If there is a fire or someone is hurt, call 999.',
+  /** For staff and the pack. */
   mainFuse: 'Only the network operator (or its agent) may change the main fuse or the cut-out.',
+  /** The same, in the customer's words. */
+  mainFuseCustomer: 'Only your network operator, or someone working for them, may change the main fuse or the cut-out.',
   notADesign:
     'These checks help prepare for the survey; they are not a design. The installation is designed, installed and certified by a qualified electrician under BS 7671, the IET Code of Practice for EV Charging Equipment Installation, and local building and planning rules.',
 });
@@ -39,7 +42,7 @@ export const customerPhotoCautions: readonly string[] = Object.freeze([
  * @example slotCaution('consumer_unit_photo') // 'A photo of the consumer unit (fuse box) with its cover closed …'
  */
 export function slotCaution(kind: UploadKind): string | null {
-  if (kind === 'consumer_unit_photo') return `${caution.consumerUnitClosed} Never take the cover off.`;
+  if (kind === 'consumer_unit_photo') return caution.consumerUnitClosed;
   if (kind === 'meter_photo' || kind === 'cutout_photo') return caution.meterCupboard;
   return null;
 }

@@ -7,6 +7,8 @@ import { requiredUploadKinds } from './readiness/checks/documents';
 import { uploadKindLabels, uploadKindStatus } from './readiness/upload-status';
 import type { ChecklistAnswers, UploadSummary } from './readiness/types';
 
+const LIST = new Intl.ListFormat('en-GB', { style: 'long', type: 'conjunction' });
+
 export type CustomerGap = { section: string; title: string; text: string };
 
 /**
@@ -17,7 +19,9 @@ export function customerGaps(checklist: Checklist, uploads: readonly UploadSumma
   const gaps: CustomerGap[] = [];
   for (const s of sectionProgress(checklist)) {
     if (s.missing.length === 0) continue;
-    gaps.push({ section: s.id, title: s.title, text: `${s.title}: add ${s.missing.map((f) => fieldLabel(s.id, f)).join(', ')}.` });
+    // Several load questions share one label: name each missing thing once, as a list is read.
+    const things = [...new Set(s.missing.map((f) => fieldLabel(s.id, f)))];
+    gaps.push({ section: s.id, title: s.title, text: endSentence(`${s.title}: add ${LIST.format(things)}`) });
   }
   for (const kind of requiredUploadKinds(checklist as ChecklistAnswers)) {
     const status = uploadKindStatus(kind, uploads);

@@ -123,6 +123,17 @@ describe('every e-mail template', () => {
   });
 });
 
+describe('the missing things a chase lists', () => {
+  it('names each thing once, joined as a list is read', () => {
+    for (const gap of customerGaps({}, [])) {
+      const body = gap.text.slice(gap.text.indexOf(': add ') + 6, -1);
+      const parts = body.split(/, | and (?=[^,]*$)/);
+      expect(new Set(parts).size, gap.text).toBe(parts.length);
+      if (parts.length > 1) expect(gap.text).toMatch(/ and [^,]+\.$/);
+    }
+  });
+});
+
 describe('endSentence', () => {
   // Worked by hand: add a full stop only where none ends the sentence, inside quotes included.
   it.each([

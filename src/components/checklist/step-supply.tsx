@@ -61,7 +61,7 @@ export function SupplyStep({ caseId }: { caseId: string }) {
         <p>{caution.photosOnly} Everything here can be read from where you stand.</p>
         <p>{caution.meterCupboard}</p>
         <p>{caution.danger}</p>
-        <p>{caution.mainFuse}</p>
+        <p>{caution.mainFuseCustomer}</p>
       </Caution>
 
       <MpanField />
