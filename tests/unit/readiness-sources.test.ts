@@ -102,6 +102,13 @@ describe('what staff read cites published documents', () => {
     expect([...new Set(bad)]).toEqual([]);
   });
 
+  it('ends every sentence once (a typed reason with its own full stop included)', () => {
+    const bad = results.flatMap(({ scenario, check }) =>
+      [check.customerText, check.staffText, ...check.actions].filter((t) => /[.!?][)”"’]?\.(?!\d)/.test(t)).map((t) => `${scenario} → ${check.id}: ${t}`),
+    );
+    expect([...new Set(bad)]).toEqual([]);
+  });
+
   it('every check source names a published document or says common practice', () => {
     const bad = results.filter(({ check }) => !PUBLISHED.test(check.source)).map(({ check }) => `${check.id}: ${check.source}`);
     expect([...new Set(bad)]).toEqual([]);
