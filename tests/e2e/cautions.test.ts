@@ -63,18 +63,55 @@ describe('cautions where photos are asked for', () => {
   });
 });
 
+async function signInAdmin(viewport = DESKTOP) {
+  const { page } = await newPage(viewport);
+  await page.goto('/signin');
+  await page.locator('[data-ready="true"]').waitFor();
+  await page.getByRole('tab', { name: 'Installer staff' }).click();
+  await page.getByLabel('E-mail address').fill('admin@example.com');
+  await page.getByLabel('Password').fill(process.env.DEMO_PASSWORD ?? 'groundwork-demo');
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL('**/office');
+  return page;
+}
+
+describe('the settings page names published sources', () => {
+  for (const [width, viewport] of [['390', PHONE], ['1280', DESKTOP]] as const) {
+    it(`at ${width} px: the On-Site Guide table and the ENA's own route names, no "from memory"`, async () => {
+      const page = await signInAdmin(viewport);
+      await page.goto('/office/settings');
+      await waitForIslands(page);
+      // The settings island fetches its values after hydrating.
+      await expect.poll(() => page.locator('main').textContent(), { timeout: 15_000 }).toContain('IET On-Site Guide Appendix A, Table A2');
+      const text = (await page.locator('main').textContent()) ?? '';
+      expect(text).toContain('Connect & Notify');
+      expect(text).not.toMatch(/from memory|Electrician's Guide|trade reference/i);
+      await snap(page, `settings-sources-${width}`);
+    });
+  }
+});
+
 describe('the demo’s registered cars', () => {
+  it('show no plate warning on the customer’s vehicle step once the records answer (390 px)', async () => {
+    const { page } = await newPage(PHONE);
+    await signInByLink(page, 'sunita.marlowe@example.org');
+    const [chandlers] = await db.select().from(schema.cases).where(eq(schema.cases.addressLine1, demoHomes.chandlers.addressLine1));
+    await page.goto(`/my/cases/${chandlers!.id}#step=vehicle`);
+    await waitForIslands(page);
+    const plate = page.getByLabel('Registration number');
+    await expect.poll(() => plate.inputValue()).toBe(demoPlates.chandlers.registration);
+    // Before the look-up has answered (it starts half a second after the step opens) no warning either.
+    expect(await page.locator('main').textContent()).not.toContain('not in use yet');
+    // The look-up answers from the fake's records; the age-identifier warning never shows.
+    await expect.poll(() => page.locator('main').textContent(), { timeout: 15_000 }).toContain('Larkspur');
+    expect(await page.locator('main').textContent()).not.toContain('not in use yet');
+    await snap(page, 'demo-chandlers-vehicle-390');
+  });
+
   it('show no plate warning on the office case page, though their age identifier is not issued yet', async () => {
     const [forge] = await db.select().from(schema.cases).where(eq(schema.cases.addressLine1, demoHomes.forge.addressLine1));
     expect(forge, 'the demo seed has the Old Forge').toBeDefined();
-    const { page: admin } = await newPage(DESKTOP);
-    await admin.goto('/signin');
-    await admin.locator('[data-ready="true"]').waitFor();
-    await admin.getByRole('tab', { name: 'Installer staff' }).click();
-    await admin.getByLabel('E-mail address').fill('admin@example.com');
-    await admin.getByLabel('Password').fill(process.env.DEMO_PASSWORD ?? 'groundwork-demo');
-    await admin.getByRole('button', { name: 'Sign in' }).click();
-    await admin.waitForURL('**/office');
+    const admin = await signInAdmin();
     await admin.goto(`/office/cases/${forge!.id}`);
     await waitForIslands(admin);
     const vehicle = admin.getByTestId('answers-vehicle');
