@@ -229,7 +229,7 @@ function NetworkOperator({ f }: { f: Figures }) {
           ['Route', typeof f.route === 'string' ? networkRouteWords[f.route] ?? f.route : '—'],
           ['Settled', f.settled ? 'Yes' : 'Not yet — answers missing'],
           ['Assessed maximum demand', `${amps(f.assessedDemandAmps)}${f.supplyPhases === 3 ? ' per phase' : ''}`],
-          ['Notify-only limit', `${amps(f.demandLimitAmps)}${f.supplyPhases === 3 ? ' per phase' : ''}`],
+          ['Connect & Notify limit', `${amps(f.demandLimitAmps)}${f.supplyPhases === 3 ? ' per phase' : ''}`],
           ['Main fuse (cut-out)', f.fuseAmps === null ? 'Not known' : amps(f.fuseAmps)],
           ['Lead time allowed', `${num(f.leadTimeDays) ?? 0} days`],
           ['Notify within', `${num(f.notifyWithinDays) ?? '—'} days of connection`],

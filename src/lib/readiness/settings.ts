@@ -159,14 +159,14 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     source: 'BS 7671:2018+A2:2022 Regulation 722.311 (current assumed: common practice)',
   },
   enaDemandLimitAmps: {
-    label: 'Notify-only demand limit',
+    label: 'Connect & Notify demand limit',
     meaning: 'New maximum demand above this means applying to the network operator before installing.',
     unit: 'A',
     source: 'Energy Networks Association, "Connecting electric vehicles and heat pumps" and its application form (Connect & Notify criteria: 60 A, 13.8 kVA single phase)',
   },
   notifyWithinDays: {
     label: 'Notify the network operator within',
-    meaning: 'Days after connection within which a notify-only installation must be reported.',
+    meaning: 'Days after connection within which a Connect & Notify installation must be reported to the network operator.',
     unit: 'days',
     source: 'Energy Networks Association, "Connecting electric vehicles and heat pumps" and its application form (Connect & Notify: notify within 28 days)',
   },
