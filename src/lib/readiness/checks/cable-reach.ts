@@ -9,7 +9,8 @@ import { optionWords } from '../../vocabulary/fields';
 import { cableSourceWords } from '../../vocabulary/pack';
 import { portLabels, portStaffLabels, wayLabels, wayPhrases } from '../../vocabulary/plan';
 
-const SOURCE = `Geometry of the customer's driveway plan; tethered cable commonly about 5 m (IEC 62196-2 connectors; ${COMMON_PRACTICE}); slack allowance and car sizes: ${COMMON_PRACTICE} (car sizes from memory)`;
+// The car sizes behind the sketch are from memory (see plan.ts); staff read only "common practice".
+const SOURCE = `Geometry of the customer's driveway plan; tethered cable commonly about 5 m (IEC 62196-2 connectors; ${COMMON_PRACTICE}); slack allowance and car sizes: ${COMMON_PRACTICE}`;
 const TITLE = 'Charging cable reaches your car';
 
 export type CableSource = 'tether' | 'tether-assumed' | 'customer-cable-assumed';
