@@ -5,10 +5,12 @@
 import { useEffect, useMemo, useRef, useState, type DragEvent } from 'react';
 import { uploadKindInfo, type UploadItem, type UploadKind } from '../../lib/schemas/uploads';
 import { uploadKindStatus } from '../../lib/readiness/upload-status';
-import { fetchUploads } from './api';
+import { fetchUploads, removeUpload } from './api';
+import { goodPhotoAdvice } from '../../lib/photo-quality';
+import { GoodPhotoPicture } from './good-photo-picture';
 import { allowedFileTypes, limitsLine } from './upload-types';
 import type { SlotUppy } from './upload-widget';
-import { AcceptedIcon, ClockIcon, InfoIcon, MissingIcon, NotAcceptedIcon, StopIcon } from '../icons';
+import { AcceptedIcon, CameraIcon, ClockIcon, InfoIcon, MissingIcon, NotAcceptedIcon, StopIcon, WarningIcon } from '../icons';
 import { UploadedFile } from './uploaded-file';
 
 export type UploadSlotProps = {
@@ -88,7 +90,7 @@ function DropZone({ kind, photoOnly, touch, opening, onOpen }: { kind: UploadKin
                 onChange={(event) => picked(event.currentTarget)}
               />
             </label>
-            {touch && (
+            {touch && photoOnly && (
               <label className="btn-secondary cursor-pointer focus-within:ring-2 focus-within:ring-ground-600">
                 Take a photo
                 <input type="file" name="camera-photo" accept="image/*" capture="environment" className="sr-only" onChange={(event) => picked(event.currentTarget)} />
@@ -96,6 +98,63 @@ function DropZone({ kind, photoOnly, touch, opening, onOpen }: { kind: UploadKin
             )}
           </div>
         </>
+      )}
+    </div>
+  );
+}
+
+/**
+ * What the photo check found on the photo just sent, in plain words, beside a drawing of what a
+ * good one looks like, with Take again (a new photo replaces this one) and Keep this one (the
+ * office decides). The check advises; nothing is refused.
+ */
+function PhotoCheck({ item, kind, touch, busy, error, onRetake, onKeep }: { item: UploadItem; kind: UploadKind; touch: boolean; busy: boolean; error: string | null; onRetake: (file: File) => void; onKeep: () => void }) {
+  const problems = item.quality?.problems ?? [];
+  const headingId = `photo-check-${item.id}`;
+  return (
+    <div className="rounded-lg border-2 border-attention/40 bg-attention-soft p-3" role="region" aria-labelledby={headingId} data-testid="photo-check">
+      <p id={headingId} className="flex items-center gap-2 font-bold text-ink">
+        <WarningIcon className="h-5 w-5 text-attention" />
+        This photo may be hard to read
+      </p>
+      <ul className="mt-1 list-disc pl-6 text-ink" data-testid="photo-problems">
+        {problems.map((p) => (
+          <li key={p.code} data-code={p.code}>{p.message}</li>
+        ))}
+      </ul>
+      <div className="mt-3 flex items-start gap-3">
+        <GoodPhotoPicture kind={kind} />
+        <p className="text-sm text-ink">
+          <span className="font-semibold">A good photo: </span>
+          {goodPhotoAdvice[kind]}
+        </p>
+      </div>
+      <div className="mt-3 flex flex-wrap gap-2">
+        <label className={`btn-primary cursor-pointer focus-within:ring-2 focus-within:ring-ground-600 ${busy ? 'pointer-events-none opacity-60' : ''}`}>
+          <CameraIcon className="h-5 w-5" />
+          {busy ? 'Replacing…' : 'Take again'}
+          <input
+            type="file"
+            name="retake"
+            accept="image/*"
+            {...(touch ? { capture: 'environment' } : {})}
+            className="sr-only"
+            disabled={busy}
+            data-testid="retake-input"
+            onChange={(event) => {
+              const file = event.currentTarget.files?.[0];
+              event.currentTarget.value = '';
+              if (file) onRetake(file);
+            }}
+          />
+        </label>
+        <button type="button" className="btn-secondary" disabled={busy} onClick={onKeep}>
+          Keep this one
+        </button>
+      </div>
+      <p className="mt-2 text-xs text-ground-800">Keeping it is fine: your installer will look at it and ask again only if they need to.</p>
+      {error && (
+        <p role="alert" className="mt-1 text-sm font-semibold text-blocked">{error}</p>
       )}
     </div>
   );
@@ -134,6 +193,10 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
   const [touch, setTouch] = useState(false);
   const [expanded, setExpanded] = useState(false);
   const [busy, setBusy] = useState(false);
+  // The photo just sent, while the customer decides on what the photo check found.
+  const [checking, setChecking] = useState<UploadItem | null>(null);
+  const [replacing, setReplacing] = useState(false);
+  const [retakeError, setRetakeError] = useState<string | null>(null);
   const onChangeRef = useRef(onChange);
   onChangeRef.current = onChange;
   const ids = useMemo(() => ({ heading: `upload-${kind}-heading`, hint: `upload-${kind}-hint` }), [kind]);
@@ -186,6 +249,8 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
             const item = response.body as unknown as UploadItem;
             setSendError(null);
             update((prev) => [...prev.filter((i) => i.id !== item.id), item]);
+            setChecking(item.quality && !item.quality.ok ? item : null);
+            setRetakeError(null);
             // Leave "Sent" in view for a moment, then clear the Dashboard for the next photo.
             if (file) setTimeout(() => uppy.getFile(file.id) && uppy.removeFile(file.id), 1500);
           });
@@ -209,6 +274,22 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
         setSendError('The uploader did not load. Please check your connection and try again.');
       },
     );
+  };
+
+  /** Take again: the flagged photo is removed, then the new one is sent in its place. */
+  const retake = async (flagged: UploadItem, file: File) => {
+    setReplacing(true);
+    setRetakeError(null);
+    try {
+      await removeUpload(flagged.id);
+      update((prev) => prev.filter((i) => i.id !== flagged.id));
+      setChecking(null);
+      open([file]);
+    } catch (err) {
+      setRetakeError((err as Error).message);
+    } finally {
+      setReplacing(false);
+    }
   };
 
   const photoOnly = info.accepts === 'photo';
@@ -245,7 +326,7 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
               hideProgressAfterFinish
               showRemoveButtonAfterComplete={false}
               doneButtonHandler={null}
-              showNativePhotoCameraButton={touch}
+              showNativePhotoCameraButton={touch && photoOnly}
               nativeCameraFacingMode="environment"
               fileManagerSelectionType="files"
               locale={widget.mod.dashboardStrings(photoOnly)}
@@ -255,6 +336,18 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
           )}
           <p className="mt-1 text-sm text-ground-700">{limitsLine(kind)}.</p>
         </div>
+      )}
+
+      {checking && (
+        <PhotoCheck
+          item={checking}
+          kind={kind}
+          touch={touch}
+          busy={replacing}
+          error={retakeError}
+          onRetake={(file) => void retake(checking, file)}
+          onKeep={() => setChecking(null)}
+        />
       )}
 
       {sendError && (
@@ -279,7 +372,11 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
                 item={item}
                 title={heading}
                 canRemove={editable}
-                onRemoved={(id) => update((prev) => prev.filter((i) => i.id !== id))}
+                showFlag={checking?.id !== item.id}
+                onRemoved={(id) => {
+                  if (checking?.id === id) setChecking(null);
+                  update((prev) => prev.filter((i) => i.id !== id));
+                }}
               />
             ))}
           </ul>
