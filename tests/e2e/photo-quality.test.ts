@@ -107,6 +107,19 @@ describe('photo check at upload, in Chromium', () => {
     await snap(office.page, 'office-queue-photos-flagged-390');
     await office.page.setViewportSize(DESKTOP);
 
+    // The thresholds are settings, each with its meaning, default and where it comes from.
+    await office.page.goto('/office/settings');
+    const photoSettings = office.page.locator('fieldset', { hasText: 'Photo checks at upload' });
+    await photoSettings.waitFor(waitLong);
+    const sharpness = office.page.getByTestId('setting-photoSharpnessMin');
+    await expect(sharpness.textContent()).resolves.toContain('variance of the Laplacian');
+    await expect(sharpness.textContent()).resolves.toContain('Common practice — no published source');
+    await expect(office.page.getByLabel('Photo sharpness, at least').inputValue()).resolves.toBe('100');
+    await photoSettings.screenshot({ path: 'screenshots/settings-photo-checks-1280.png' });
+    await office.page.setViewportSize(PHONE);
+    await photoSettings.screenshot({ path: 'screenshots/settings-photo-checks-390.png' });
+    await office.page.setViewportSize(DESKTOP);
+
     await office.page.goto(`/office/cases/${row.id}`);
     await waitForIslands(office.page);
     const flags = office.page.getByTestId('upload-group-meter_photo').getByTestId('photo-flags');

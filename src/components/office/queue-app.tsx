@@ -62,7 +62,7 @@ function CustomerCell({ r }: { r: QueueItem }) {
         </div>
       )}
       {r.flaggedPhotos > 0 && (
-        <div className="mt-1 ml-1 inline-flex items-center gap-1 rounded bg-attention-soft px-1.5 py-0.5 text-xs font-semibold text-attention" data-testid="photos-flagged">
+        <div className="mt-1 inline-flex items-center gap-1 rounded bg-attention-soft px-1.5 py-0.5 text-xs font-semibold text-attention" data-testid="photos-flagged">
           <CameraIcon className="h-3.5 w-3.5" />
           {r.flaggedPhotos === 1 ? '1 photo flagged' : `${r.flaggedPhotos} photos flagged`}
         </div>

@@ -272,7 +272,7 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     label: 'Photo sharpness, at least',
     meaning:
       'A photo whose sharpness is below this is flagged as blurred. Sharpness = variance of the Laplacian L = I(x−1,y) + I(x+1,y) + I(x,y−1) + I(x,y+1) − 4·I(x,y) over a 1024 px greyscale copy whose 1st–99th percentile of brightness is stretched to 0–255 (so darkness alone does not read as blur).',
-    unit: 'L²',
+    unit: 'variance',
     source: `${COMMON_PRACTICE} (the threshold); the measure: variance of the Laplacian, Pech-Pacheco et al., ICPR 2000 (from memory)`,
   },
   photoDarkMeanMax: {
