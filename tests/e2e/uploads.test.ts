@@ -7,6 +7,7 @@ import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 import { noisyJpeg, smallImage, tinyPdf } from '../fixtures/uploads';
+import { sharpPhoto, spoil } from '../fixtures/photo-quality';
 
 afterAll(close);
 
@@ -166,10 +167,17 @@ describe('photos and documents, in Chromium', () => {
     // The camera input asks for the rear camera (HTML Media Capture, capture="environment").
     await expect(slot(page, 'cutout_photo').locator('input[name="camera-photo"]').getAttribute('capture')).resolves.toBe('environment');
     await snap(page, 'uploads-touch-390');
+    // A slot for a document (the landlord's letter, often a PDF) opens the file picker, not the camera.
+    await expect(slot(page, 'landlord_permission').getByText('Take a photo', { exact: true }).count()).resolves.toBe(0);
+    await expect(slot(page, 'landlord_permission').locator('input[name="camera-photo"]').count()).resolves.toBe(0);
+    await expect(slot(page, 'landlord_permission').getByText('Choose a file', { exact: true }).isVisible()).resolves.toBe(true);
     // Opening the slot brings Uppy's own widget, which offers the camera too.
     await slot(page, 'cutout_photo').getByTestId('drop-zone').click({ position: { x: 8, y: 8 } });
     await slot(page, 'cutout_photo').getByRole('tab', { name: 'Take a photo' }).waitFor();
     await expect(slot(page, 'cutout_photo').locator('input[name="camera-photo"]').getAttribute('capture')).resolves.toBe('environment');
+    // A flagged photo's "Take again" opens the rear camera too.
+    await fileInput(page, 'cutout_photo').setInputFiles({ name: 'fuse.jpg', mimeType: 'image/jpeg', buffer: await spoil.blurred(await sharpPhoto()) });
+    await expect(slot(page, 'cutout_photo').getByTestId('retake-input').getAttribute('capture', { timeout: 20_000 })).resolves.toBe('environment');
     await context.close();
   });
 
