@@ -319,12 +319,15 @@ async function seedEvidence(db: Db, input: { caseRow: CaseRow; customerId: strin
 }
 
 /**
- * Every demo photo (drawn, invented) with its slot and whether the office accepted it, for
+ * Every demo photo (drawn, invented) with its slot, the office's decision and whether it was drawn
+ * hard to read on purpose, for
  * `npm run bench:photo-quality`, which reports the photo check's false-positive rate on them.
  */
-export function demoPhotos(): { case: string; kind: UploadRow['kind']; name: string; status: UploadRow['status']; svg: string }[] {
+export function demoPhotos(): { case: string; kind: UploadRow['kind']; name: string; status: UploadRow['status']; svg: string; poor: boolean }[] {
   const sets = { Chandler: chandlersEvidence(), Heron: heronEvidence(), Forge: forgeEvidence() };
+  // Two drawings are made hard to read on purpose: the dim cut-out and the dark consumer unit.
+  const poor = new Set([dimCutoutSvg, darkUnitSvg]);
   return Object.entries(sets).flatMap(([name, items]) =>
-    items.filter((e) => e.svg).map((e) => ({ case: name, kind: e.kind, name: e.name, status: e.status, svg: e.svg! })),
+    items.filter((e) => e.svg).map((e) => ({ case: name, kind: e.kind, name: e.name, status: e.status, svg: e.svg!, poor: poor.has(e.svg!) })),
   );
 }
