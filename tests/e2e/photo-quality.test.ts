@@ -4,8 +4,7 @@
 // (filter "Photos flagged", kept in the URL) and on the case page. Photos drawn in the test.
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import type { Page } from 'playwright-core';
-import { close, DESKTOP, newPage, PHONE, problemsOf, signInByLink, snap, waitForIslands } from './browser';
+import { close, DESKTOP, newPage, openPhotos, PHONE, problemsOf, signInByLink, signInStaff, slotFileInput, snap, uploadSlot, waitForIslands } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 import { sharpPhoto, spoil } from '../fixtures/photo-quality';
@@ -13,7 +12,6 @@ import { sharpPhoto, spoil } from '../fixtures/photo-quality';
 afterAll(close);
 
 const marker = `Pqe${Date.now().toString(36)}`;
-const STAFF_PASSWORD = process.env.DEMO_PASSWORD ?? 'groundwork-demo';
 const waitLong = { timeout: 20_000 };
 
 async function customer(name: string) {
@@ -22,23 +20,10 @@ async function customer(name: string) {
   return { user, row };
 }
 
-async function openPhotos(page: Page, caseId: string) {
-  await page.goto(`/my/cases/${caseId}/photos`);
-  await page.locator('astro-island:not([ssr]) [data-testid^="upload-slot-"] [data-testid="drop-zone"]').first().waitFor();
-}
-const slot = (page: Page, kind: string) => page.getByTestId(`upload-slot-${kind}`);
-const fileInput = (page: Page, kind: string) => slot(page, kind).locator('input[type="file"][name="files[]"]:not([webkitdirectory])');
+const slot = uploadSlot;
+const fileInput = slotFileInput;
 const rowsOf = (caseId: string) => db.select().from(schema.uploads).where(eq(schema.uploads.caseId, caseId));
 
-async function signInStaff(page: Page, email: string) {
-  await page.goto('/signin');
-  await page.locator('[data-ready="true"]').waitFor();
-  await page.getByRole('tab', { name: 'Installer staff' }).click();
-  await page.getByLabel('E-mail address').fill(email);
-  await page.getByLabel('Password').fill(STAFF_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL('**/office');
-}
 
 describe('photo check at upload, in Chromium', () => {
   it('tells the customer at once, and lets them take it again or keep it; the office sees the flag', async () => {
@@ -94,6 +79,7 @@ describe('photo check at upload, in Chromium', () => {
     // The office: the queue's "Photos flagged" filter, kept in the URL, and the flag on the case page.
     const office = await newPage(DESKTOP);
     await signInStaff(office.page, 'admin@example.com');
+    await office.page.waitForURL('**/office');
     await office.page.goto(`/office?q=${marker}`);
     await waitForIslands(office.page);
     const queueRows = office.page.locator('[data-testid="queue-table"] [data-testid="queue-row"]');

@@ -3,7 +3,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { BrowserContext, Page } from 'playwright-core';
-import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink } from './browser';
+import { baseUrl, close, DESKTOP, newPage, openPhotos, PHONE, problemsOf, slotFileInput, snap, signInByLink, uploadSlot } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 import { noisyJpeg, smallImage, tinyPdf } from '../fixtures/uploads';
@@ -25,16 +25,8 @@ async function tenantWithCase(name: string) {
   return { user, row };
 }
 
-// Astro drops an island's `ssr` attribute once React has hydrated it. Each slot shows a light
-// drop zone; Uppy's widget replaces it once the customer uses the slot.
-async function openPhotos(page: Page, caseId: string) {
-  await page.goto(`/my/cases/${caseId}/photos`);
-  await page.locator('astro-island:not([ssr]) [data-testid^="upload-slot-"] [data-testid="drop-zone"]').first().waitFor();
-}
-
-const slot = (page: Page, kind: string) => page.getByTestId(`upload-slot-${kind}`);
-// The drop zone's own picker, or Uppy's once the widget is open: both are named files[].
-const fileInput = (page: Page, kind: string) => slot(page, kind).locator('input[type="file"][name="files[]"]:not([webkitdirectory])');
+const slot = uploadSlot;
+const fileInput = slotFileInput;
 const dropZoneOrWidget = '[data-testid="drop-zone"], .uppy-Dashboard';
 /** Scripts the page has fetched so far. */
 const scriptsLoaded = (page: Page) =>

@@ -36,7 +36,7 @@ const codesOf = (body: { quality: { problems: { code: string }[] } }) => body.qu
 let admin: Client;
 let flagged: Awaited<ReturnType<typeof customerWithCase>>;
 let clean: Awaited<ReturnType<typeof customerWithCase>>;
-const photo = { sharp: Buffer.alloc(0), other: Buffer.alloc(0) };
+const photo: { sharp: Buffer; other: Buffer } = { sharp: Buffer.alloc(0), other: Buffer.alloc(0) };
 
 beforeAll(async () => {
   admin = (await newStaff('admin')).client;

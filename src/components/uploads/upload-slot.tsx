@@ -105,10 +105,10 @@ function DropZone({ kind, photoOnly, touch, opening, onOpen }: { kind: UploadKin
 
 /**
  * What the photo check found on the photo just sent, in plain words, beside a drawing of what a
- * good one looks like, with Take again (a new photo replaces this one) and Keep this one (the
+ * good one looks like, with Take again (the new photo replaces this one once it has arrived) and Keep this one (the
  * office decides). The check advises; nothing is refused.
  */
-function PhotoCheck({ item, kind, touch, busy, error, onRetake, onKeep }: { item: UploadItem; kind: UploadKind; touch: boolean; busy: boolean; error: string | null; onRetake: (file: File) => void; onKeep: () => void }) {
+function PhotoCheck({ item, kind, touch, onRetake, onKeep }: { item: UploadItem; kind: UploadKind; touch: boolean; onRetake: (file: File) => void; onKeep: () => void }) {
   const problems = item.quality?.problems ?? [];
   const headingId = `photo-check-${item.id}`;
   return (
@@ -130,16 +130,15 @@ function PhotoCheck({ item, kind, touch, busy, error, onRetake, onKeep }: { item
         </p>
       </div>
       <div className="mt-3 flex flex-wrap gap-2">
-        <label className={`btn-primary cursor-pointer focus-within:ring-2 focus-within:ring-ground-600 ${busy ? 'pointer-events-none opacity-60' : ''}`}>
+        <label className="btn-primary cursor-pointer focus-within:ring-2 focus-within:ring-ground-600">
           <CameraIcon className="h-5 w-5" />
-          {busy ? 'Replacing…' : 'Take again'}
+          Take again
           <input
             type="file"
             name="retake"
             accept="image/*"
             {...(touch ? { capture: 'environment' } : {})}
             className="sr-only"
-            disabled={busy}
             data-testid="retake-input"
             onChange={(event) => {
               const file = event.currentTarget.files?.[0];
@@ -148,14 +147,11 @@ function PhotoCheck({ item, kind, touch, busy, error, onRetake, onKeep }: { item
             }}
           />
         </label>
-        <button type="button" className="btn-secondary" disabled={busy} onClick={onKeep}>
+        <button type="button" className="btn-secondary" onClick={onKeep}>
           Keep this one
         </button>
       </div>
       <p className="mt-2 text-xs text-ground-800">Keeping it is fine: your installer will look at it and ask again only if they need to.</p>
-      {error && (
-        <p role="alert" className="mt-1 text-sm font-semibold text-blocked">{error}</p>
-      )}
     </div>
   );
 }
@@ -195,8 +191,8 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
   const [busy, setBusy] = useState(false);
   // The photo just sent, while the customer decides on what the photo check found.
   const [checking, setChecking] = useState<UploadItem | null>(null);
-  const [replacing, setReplacing] = useState(false);
-  const [retakeError, setRetakeError] = useState<string | null>(null);
+  // The flagged photo a retake replaces: removed once the new one has arrived, never before.
+  const replaceRef = useRef<string | null>(null);
   const onChangeRef = useRef(onChange);
   onChangeRef.current = onChange;
   const ids = useMemo(() => ({ heading: `upload-${kind}-heading`, hint: `upload-${kind}-hint` }), [kind]);
@@ -250,7 +246,14 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
             setSendError(null);
             update((prev) => [...prev.filter((i) => i.id !== item.id), item]);
             setChecking(item.quality && !item.quality.ok ? item : null);
-            setRetakeError(null);
+            const replaced = replaceRef.current;
+            if (replaced && replaced !== item.id) {
+              replaceRef.current = null;
+              removeUpload(replaced).then(
+                () => update((prev) => prev.filter((i) => i.id !== replaced)),
+                (err: Error) => setSendError(err.message),
+              );
+            }
             // Leave "Sent" in view for a moment, then clear the Dashboard for the next photo.
             if (file) setTimeout(() => uppy.getFile(file.id) && uppy.removeFile(file.id), 1500);
           });
@@ -276,20 +279,11 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
     );
   };
 
-  /** Take again: the flagged photo is removed, then the new one is sent in its place. */
-  const retake = async (flagged: UploadItem, file: File) => {
-    setReplacing(true);
-    setRetakeError(null);
-    try {
-      await removeUpload(flagged.id);
-      update((prev) => prev.filter((i) => i.id !== flagged.id));
-      setChecking(null);
-      open([file]);
-    } catch (err) {
-      setRetakeError((err as Error).message);
-    } finally {
-      setReplacing(false);
-    }
+  /** Take again: the new photo is sent, and the flagged one is removed once it has arrived. */
+  const retake = (flagged: UploadItem, file: File) => {
+    replaceRef.current = flagged.id;
+    setChecking(null);
+    open([file]);
   };
 
   const photoOnly = info.accepts === 'photo';
@@ -343,9 +337,7 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
           item={checking}
           kind={kind}
           touch={touch}
-          busy={replacing}
-          error={retakeError}
-          onRetake={(file) => void retake(checking, file)}
+          onRetake={(file) => retake(checking, file)}
           onKeep={() => setChecking(null)}
         />
       )}

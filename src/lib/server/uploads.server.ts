@@ -411,7 +411,8 @@ async function reencodeImage(input: ScratchFile, type: StoredType): Promise<Prep
   const thumb = await ScratchFile.reserve('webp');
   try {
     const done = await reencodePhoto(input.path, type as ImageType, main.path, thumb.path);
-    const measured = await measurePhoto(input.path, done.width, done.height);
+    // The check advises: if it cannot measure, the photo is still kept, without a verdict.
+    const measured = await measurePhoto(input.path, done.width, done.height).catch(() => null);
     return { main, thumb, type, ...done, measured };
   } catch (err) {
     await Promise.all([main.remove(), thumb.remove()]);
