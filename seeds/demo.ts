@@ -23,6 +23,8 @@ import { caseNotes, cases, caseVehicleLookups, settings, uploads, type CaseRow, 
 import { uploadLimits } from '../src/lib/schemas/uploads';
 import { readSiteMeasures } from '../src/lib/schemas/outcome';
 import { uploadStorage } from '../src/lib/server/storage/index.server';
+import { assessPhoto, measurePhoto, type Measured, type OtherPhoto } from '../src/lib/server/photo-quality.server';
+import { defaultReadinessSettings } from '../src/lib/readiness/settings';
 
 type Db = PostgresJsDatabase<Record<string, unknown>>;
 
@@ -245,14 +247,16 @@ function forgeEvidence(): Evidence[] {
   ];
 }
 
-type Prepared = { evidence: Evidence; main: Buffer; thumb: Buffer | null; mimeType: string; width: number | null; height: number | null };
+type Prepared = { evidence: Evidence; main: Buffer; thumb: Buffer | null; mimeType: string; width: number | null; height: number | null; measured: Measured | null };
 
 // Images go through sharp as an upload would (JPEG plus a WebP thumbnail of the same width).
 async function prepareEvidence(evidence: Evidence): Promise<Prepared> {
-  if (evidence.pdf) return { evidence, main: await evidence.pdf(), thumb: null, mimeType: 'application/pdf', width: null, height: null };
+  if (evidence.pdf) return { evidence, main: await evidence.pdf(), thumb: null, mimeType: 'application/pdf', width: null, height: null, measured: null };
   const { data: main, info } = await sharp(Buffer.from(evidence.svg!)).jpeg({ quality: 85 }).toBuffer({ resolveWithObject: true });
   const thumb = await sharp(main).resize({ width: uploadLimits.thumbWidth, withoutEnlargement: true }).webp({ quality: 75 }).toBuffer();
-  return { evidence, main, thumb, mimeType: 'image/jpeg', width: info.width, height: info.height };
+  // The photo check, as at upload (the dim cut-out and the dark consumer unit are flagged).
+  const measured = await measurePhoto(main, info.width, info.height);
+  return { evidence, main, thumb, mimeType: 'image/jpeg', width: info.width, height: info.height, measured };
 }
 
 /** Stores each file through the storage interface, adds its uploads row, then restores the case's readiness. */
@@ -261,7 +265,10 @@ async function seedEvidence(db: Db, input: { caseRow: CaseRow; customerId: strin
   const prepared = await Promise.all(input.items.map(prepareEvidence));
   const start = Date.now() - prepared.length * 60_000 - 86_400_000;
   const rows = [];
+  const seen: OtherPhoto[] = [];
   for (const [i, p] of prepared.entries()) {
+    const quality = p.measured ? assessPhoto(p.measured, p.evidence.kind, defaultReadinessSettings, seen) : null;
+    if (p.measured) seen.push({ kind: p.evidence.kind, hash: p.measured.hash });
     const id = randomUUID();
     const shard = id.slice(0, 2);
     const storageKey = `${shard}/${id}.${p.mimeType === 'application/pdf' ? 'pdf' : 'jpg'}`;
@@ -287,6 +294,9 @@ async function seedEvidence(db: Db, input: { caseRow: CaseRow; customerId: strin
       createdAt: new Date(start + i * 60_000),
       storageKey,
       thumbKey,
+      qualityOk: quality ? quality.ok : null,
+      quality,
+      perceptualHash: p.measured?.hash ?? null,
     });
   }
   await db.insert(uploads).values(rows);
@@ -299,4 +309,18 @@ async function seedEvidence(db: Db, input: { caseRow: CaseRow; customerId: strin
     .update(cases)
     .set({ ...readiness, lastCustomerActivityAt: new Date(start + prepared.length * 60_000) })
     .where(eq(cases.id, input.caseRow.id));
+}
+
+/**
+ * Every demo photo (drawn, invented) with its slot, the office's decision and whether it was drawn
+ * hard to read on purpose, for
+ * `npm run bench:photo-quality`, which reports the photo check's false-positive rate on them.
+ */
+export function demoPhotos(): { case: string; kind: UploadRow['kind']; name: string; status: UploadRow['status']; svg: string; poor: boolean }[] {
+  const sets = { Chandler: chandlersEvidence(), Heron: heronEvidence(), Forge: forgeEvidence() };
+  // Two drawings are made hard to read on purpose: the dim cut-out and the dark consumer unit.
+  const poor = new Set([dimCutoutSvg, darkUnitSvg]);
+  return Object.entries(sets).flatMap(([name, items]) =>
+    items.filter((e) => e.svg).map((e) => ({ case: name, kind: e.kind, name: e.name, status: e.status, svg: e.svg!, poor: poor.has(e.svg!) })),
+  );
 }
