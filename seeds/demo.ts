@@ -49,7 +49,7 @@ export async function seedDemo(db: Db, password: string) {
       vehicle: { make: 'Example Motors', model: 'Volta 5', condition: 'new', deliveryDate: daysFromNow(40), connector: 'type2' },
     },
   });
-  await createCase(db, { customerId: tobias!.id, stage: 'invited', addressLine1: '3 Mill Lane', town: 'Quillbury', postcode: 'AB12 7EF', invitedDaysAgo: 1 });
+  await createCase(db, { customerId: tobias!.id, stage: 'invited', addressLine1: '3 Mill Lane', town: 'Quillbury', postcode: 'AB12 7EF', invitedDaysAgo: 1, fromInvitation: true });
   await createCase(db, {
     customerId: delphine!.id,
     stage: 'sent_for_review',

@@ -3,7 +3,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
-import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink } from './browser';
+import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink, waitForIslands } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 
@@ -54,6 +54,7 @@ describe('the customer checklist, in Chromium', () => {
 
     // Step 1: About you. Typing and Tab, as on a keyboard.
     await expect.poll(() => page.locator('#step-heading').textContent()).toBe('About you');
+    await waitForIslands(page);
     await expect(page.url()).toContain('#step=about');
     await snapBoth(page, 'checklist-about-empty');
     await page.getByLabel('Full name').pressSequentially('Ines Farrow');
@@ -118,7 +119,7 @@ describe('the customer checklist, in Chromium', () => {
     // Step 3: Your supply. 1312345678906 has the wrong check digit: the weighted sum of the
     // first 12 digits is 1349 (TRADE-REFERENCE worked example), 1349 mod 11 = 7, so the 13th
     // digit must be 7 (MRA/Elexon rule as described in the MPAN article).
-    await nextStep(page, 'Your supply');
+    await nextStep(page, 'Your meter and fuse');
     const mpan = page.getByLabel('MPAN core (13 digits)');
     await expect(mpan.getAttribute('inputmode')).resolves.toBe('numeric');
     await mpan.fill('1312345678906');
@@ -136,9 +137,14 @@ describe('the customer checklist, in Chromium', () => {
     await snap(page, 'checklist-supply-mpan-help-390');
     await page.getByRole('radio', { name: '100 A' }).check();
     await group(page, 'Is the supply shared with a neighbour (looped)?').getByRole('radio', { name: 'No', exact: true }).check();
-    await page.getByLabel('Where is your consumer unit (fuse box)?').fill('Under the stairs');
     await page.getByRole('radio', { name: 'I don’t know' }).check();
     await page.getByRole('radio', { name: 'Single phase' }).check();
+    await waitSaved(page);
+    await snapBoth(page, 'checklist-supply');
+
+    // Step 4: the consumer unit and the big loads, saved under supply as before.
+    await nextStep(page, 'Fuse box and big electric loads');
+    await page.getByLabel('Where is your consumer unit (fuse box)?').fill('Under the stairs');
     await page.getByLabel('Electric shower rating').fill('9.5');
     await group(page, 'An electric cooker, oven or hob?').getByRole('radio', { name: 'Yes', exact: true }).check();
     await group(page, 'An immersion heater for hot water?').getByRole('radio', { name: 'No', exact: true }).check();
@@ -148,9 +154,9 @@ describe('the customer checklist, in Chromium', () => {
     await group(page, 'Solar panels or a home battery?').getByRole('radio', { name: 'Yes', exact: true }).check();
     await group(page, 'How many socket circuits does your fuse box have?').getByRole('radio', { name: '3', exact: true }).check();
     await waitSaved(page);
-    await snapBoth(page, 'checklist-supply');
+    await snapBoth(page, 'checklist-loads');
 
-    // Step 4: Parking.
+    // Step 5: Parking.
     await nextStep(page, 'Parking');
     await page.getByRole('radio', { name: 'A driveway at my home' }).check();
     await page.getByLabel('How many cars park there?').fill('2');
@@ -158,7 +164,7 @@ describe('the customer checklist, in Chromium', () => {
     await waitSaved(page);
     await snapBoth(page, 'checklist-parking');
 
-    // Step 5: Charge point and cable route; the conditional questions appear when needed.
+    // Step 6: Charge point and cable route; the conditional questions appear when needed.
     await nextStep(page, 'Charge point and cable route');
     await page.getByLabel('Where would you like the charge point?').fill('Front wall, left of the door');
     await page.getByLabel('Rough cable length from the consumer unit').fill('8');
@@ -173,12 +179,13 @@ describe('the customer checklist, in Chromium', () => {
 
     // The step list on a phone: opens on demand and says each step's state in words.
     await page.getByRole('button', { name: 'All steps' }).click();
-    await expect.poll(() => page.getByTestId('step-link-supply').textContent()).toContain('1 to answer');
+    await expect.poll(() => page.getByTestId('step-link-loads').textContent()).toContain('1 to answer');
+    await expect(page.getByTestId('step-link-supply').textContent()).resolves.toContain('Complete');
     await expect(page.getByTestId('step-link-about').textContent()).resolves.toContain('Complete');
     await snap(page, 'checklist-step-list-390');
     await page.getByTestId('step-link-review').click();
 
-    // Step 6: Check and send. The one gap is listed with what it holds up.
+    // Step 7: Check and send. The one gap is listed with what it holds up.
     await expect.poll(() => page.locator('#step-heading').textContent()).toBe('Check and send');
     await expect(page.getByText('Storage heaters, total rating').first().isVisible()).resolves.toBe(true);
     await expect(page.getByTestId('summary-supply').textContent()).resolves.toContain('13 1234 5678 907 (Merseyside, Cheshire and North Wales)');

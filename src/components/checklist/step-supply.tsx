@@ -1,4 +1,5 @@
-// Step 3, Your supply: the MPAN, the main fuse, earthing and the big loads already in the home.
+// Step 3, Your meter and fuse: the MPAN, the main fuse, looped supply, earthing and phases, with
+// photos of the meter and cut-out. The consumer unit and the big loads are the next step (step-loads.tsx).
 import { StepEvidence } from './step-evidence';
 import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore, UNLISTED_DISTRIBUTOR } from '../../lib/validation/mpan';
 import { CheckIcon } from '../icons';
@@ -96,12 +97,6 @@ export function SupplyStep({ caseId }: { caseId: string }) {
         </MoreHelp>
       </ChoiceField>
 
-      <TextField
-        path="supply.consumerUnitLocation"
-        multiline
-        help="The consumer unit, often called the fuse box, holds your home’s switches and circuit breakers. For example: “under the stairs” or “garage, back wall”."
-      />
-
       <ChoiceField
         path="supply.earthing"
         help="How your wiring connects to earth, which is part of what keeps you safe. Your electrician will check it; tell us if you already know."
@@ -127,26 +122,7 @@ export function SupplyStep({ caseId }: { caseId: string }) {
         </MoreHelp>
       </ChoiceField>
 
-      <fieldset className="space-y-5 rounded-lg border border-ground-100 p-4">
-        <legend className="float-left w-full text-lg font-bold text-ground-900">Big electrical loads already in your home</legend>
-        <p className="field-help clear-both !mt-1 pt-1">
-          These add up with a charger at busy times. Give 0 for anything you don’t have. A rating is usually on a label on the front or
-          underside of the appliance, or in its manual.
-        </p>
-        <NumberField path="supply.loads.showerKw" placeholder="e.g. 9.5" help="An electric shower heats its own water, usually 7 to 10.5 kW." />
-        <ChoiceField path="supply.loads.cooker" columns={2} help="An oven, hob or range that runs on electricity." />
-        <ChoiceField path="supply.loads.immersion" columns={2} help="An electric element that heats a hot-water cylinder." />
-        <NumberField path="supply.loads.heatPumpKw" placeholder="e.g. 5" help="An air- or ground-source heat pump for heating." />
-        <NumberField path="supply.loads.storageHeaters" placeholder="e.g. 6" help="All storage heaters added together, for example three of 2 kW make 6." />
-        <ChoiceField path="supply.loads.otherEvCharger" columns={2} />
-        <ChoiceField path="supply.loads.solarPv" columns={2} />
-        <ChoiceField
-          path="supply.loads.socketCircuits"
-          columns={3}
-          help="Look at the labels beside the switches in your fuse box (consumer unit), or in your photo of it: count the ones marked sockets, ring or power. Don’t open anything."
-        />
-      </fieldset>
-      <StepEvidence caseId={caseId} kinds={['meter_photo', 'cutout_photo', 'consumer_unit_photo']} heading="Photos of your supply (photos only — never open anything)" />
+      <StepEvidence caseId={caseId} kinds={['meter_photo', 'cutout_photo']} heading="Photos of your meter and cut-out (photos only — never open anything)" />
     </div>
   );
 }
