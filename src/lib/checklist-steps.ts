@@ -3,24 +3,30 @@
 // saved answers keep their section's JSON paths whatever step shows them.
 import { sectionIds, sectionProgress, type Checklist, type SectionId } from './schemas/checklist';
 
-export type StepId = 'about' | 'vehicle' | 'supply' | 'loads' | 'parking' | 'charger' | 'review';
+export type StepId = 'about' | 'home' | 'vehicle' | 'supply' | 'fusebox' | 'loads' | 'parking' | 'charger' | 'chargepoint' | 'review';
 export type DataStepId = Exclude<StepId, 'review'>;
 
 const sectionTitle = (id: SectionId) => sectionIds.find(([s]) => s === id)![1] as string;
 
-// Step titles of their own (the split supply section):
+// Step titles of their own (the supply and charger sections are split over several steps):
+const HOME_STEP_TITLE = 'Your home';
 const METER_STEP_TITLE = 'Your meter and fuse';
-const LOADS_STEP_TITLE = 'Fuse box and big electric loads';
+const FUSEBOX_STEP_TITLE = 'Your fuse box and earthing';
+const LOADS_STEP_TITLE = 'Big electric loads';
+const CHARGEPOINT_STEP_TITLE = 'Which charge point';
 const REVIEW_STEP_TITLE = 'Check and send';
 
 /** The data steps in order, each with the section whose answers it holds. */
 export const dataSteps: { id: DataStepId; section: SectionId; title: string }[] = [
   { id: 'about', section: 'about', title: sectionTitle('about') },
+  { id: 'home', section: 'about', title: HOME_STEP_TITLE },
   { id: 'vehicle', section: 'vehicle', title: sectionTitle('vehicle') },
   { id: 'supply', section: 'supply', title: METER_STEP_TITLE },
+  { id: 'fusebox', section: 'supply', title: FUSEBOX_STEP_TITLE },
   { id: 'loads', section: 'supply', title: LOADS_STEP_TITLE },
   { id: 'parking', section: 'parking', title: sectionTitle('parking') },
   { id: 'charger', section: 'charger', title: sectionTitle('charger') },
+  { id: 'chargepoint', section: 'charger', title: CHARGEPOINT_STEP_TITLE },
 ];
 
 /** Every step, the last one being "Check and send". @example checklistSteps.at(-1) // { id: 'review', title: 'Check and send' } */
@@ -29,8 +35,24 @@ export const checklistSteps: { id: StepId; title: string }[] = [
   { id: 'review', title: REVIEW_STEP_TITLE },
 ];
 
-// The supply fields shown on the second supply step: the consumer unit and what hangs off it.
-const LOADS_STEP_FIELDS = new Set(['supply.consumerUnitLocation']);
+// Fields shown on a later step than their section's first one; every supply.loads.* is on 'loads'.
+const LATER_STEP: Readonly<Record<string, DataStepId>> = {
+  'about.addressLine1': 'home',
+  'about.addressLine2': 'home',
+  'about.town': 'home',
+  'about.postcode': 'home',
+  'about.tenure': 'home',
+  'about.propertyType': 'home',
+  // Beside how the car is parked: the two together decide how far the cable must reach.
+  'vehicle.chargePort': 'parking',
+  'supply.consumerUnitLocation': 'fusebox',
+  'supply.earthing': 'fusebox',
+  'supply.phases': 'fusebox',
+  'charger.preference': 'chargepoint',
+  'charger.tetherMetres': 'chargepoint',
+  'charger.ratingKw': 'chargepoint',
+  'charger.plan': 'chargepoint',
+};
 
 /**
  * The step that shows a field, from its dotted path.
@@ -38,12 +60,13 @@ const LOADS_STEP_FIELDS = new Set(['supply.consumerUnitLocation']);
  * @example stepOfField('supply.mpanCore') // 'supply'
  */
 export function stepOfField(path: string): DataStepId {
-  if (path.startsWith('supply.loads') || LOADS_STEP_FIELDS.has(path)) return 'loads';
+  if (path === 'supply.loads' || path.startsWith('supply.loads.')) return 'loads';
+  if (LATER_STEP[path]) return LATER_STEP[path]!;
   const section = path.split('.')[0] as SectionId;
   return dataSteps.find((s) => s.section === section)?.id ?? 'about';
 }
 
-/** The step's title. @example stepTitle('loads') // 'Fuse box and big electric loads' */
+/** The step's title. @example stepTitle('loads') // 'Big electric loads' */
 export function stepTitle(id: StepId): string {
   return checklistSteps.find((s) => s.id === id)?.title ?? id;
 }
@@ -70,10 +93,13 @@ export function stepProgress(checklist: Checklist, prefilled: readonly string[] 
   const sections = sectionProgress(checklist);
   return dataSteps.map(({ id, section, title }) => {
     const s = sections.find((p) => p.id === section)!;
-    const missing = s.missing.map((field) => `${section}.${field}`).filter((path) => stepOfField(path) === id);
+    const toConfirm = prefilled.filter((path) => stepOfField(path) === id);
+    const unanswered = s.missing.map((field) => `${section}.${field}`).filter((path) => stepOfField(path) === id);
+    // An unconfirmed detail from the invitation is still a gap, however filled in it looks.
+    const missing = [...unanswered, ...toConfirm.filter((path) => !unanswered.includes(path))];
     const saved = (checklist[section] ?? {}) as Record<string, unknown>;
-    const started = Object.keys(saved).some((key) => stepOfField(`${section}.${key}`) === id);
-    return { id, title, complete: missing.length === 0, missing, toConfirm: missing.filter((p) => prefilled.includes(p)), started };
+    const started = Object.keys(saved).some((key) => stepOfField(`${section}.${key}`) === id && !toConfirm.includes(`${section}.${key}`));
+    return { id, title, complete: missing.length === 0, missing, toConfirm, started };
   });
 }
 

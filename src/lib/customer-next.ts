@@ -13,8 +13,8 @@ import { stepProgress, type DataStepId } from './checklist-steps';
 export const uploadStep: Readonly<Record<Exclude<UploadKind, 'other'>, DataStepId>> = {
   meter_photo: 'supply',
   cutout_photo: 'supply',
-  consumer_unit_photo: 'loads',
-  landlord_permission: 'about',
+  consumer_unit_photo: 'fusebox',
+  landlord_permission: 'home',
   order_agreement: 'vehicle',
   parking_evidence: 'parking',
   charger_location_photo: 'charger',

@@ -103,12 +103,12 @@ export async function submitCase(caseId: string, acknowledgeGaps: boolean): Prom
   return { kind: 'failed', message: error?.message ?? 'Something went wrong on our side. Please try again.' };
 }
 
-/** POST "these details from my installer are right". @example await confirmDetails(id) // { kind: 'saved', view } */
-export async function confirmDetails(caseId: string): Promise<PatchOutcome> {
+/** POST "these details from my installer are right". @example await confirmDetails(id, ['about.fullName']) // { kind: 'saved', view } */
+export async function confirmDetails(caseId: string, paths: string[]): Promise<PatchOutcome> {
   const r = await call(`${casePath(caseId)}/confirm-details`, {
     method: 'POST',
     headers: { 'Content-Type': 'application/json' },
-    body: JSON.stringify({ confirm: true }),
+    body: JSON.stringify({ paths }),
   });
   if (!r) return { kind: 'failed' };
   const error = (r.body as ErrorBody | null)?.error;

@@ -14,12 +14,12 @@ import { localChecklist, progressOf, resumeStep, stepFromHash, stepHash, stepOfF
 import { stepTitle } from '../../lib/checklist-steps';
 import { SaveStatusLine } from './save-status';
 import { StepList } from './step-list';
-import { AboutStep } from './step-about';
+import { AboutStep, HomeStep } from './step-about';
 import { VehicleStep } from './step-vehicle';
 import { SupplyStep } from './step-supply';
-import { LoadsStep } from './step-loads';
+import { FuseBoxStep, LoadsStep } from './step-loads';
 import { ParkingStep } from './step-parking';
-import { ChargerStep } from './step-charger';
+import { ChargePointStep, ChargerStep } from './step-charger';
 import { isSent, ReviewStep } from './step-review';
 
 type Props = {
@@ -29,12 +29,15 @@ type Props = {
 
 // Each step's opening words (step titles and these intros are the steps' own words).
 const intros: Record<StepId, string> = {
-  about: 'Who we’re talking to, and the home the charge point is for.',
+  about: 'Who we’re talking to, and how your installer can reach you.',
+  home: 'The home the charge point is for.',
   vehicle: 'The car decides the plug and how far the cable must reach. If it hasn’t arrived yet, answer from your order.',
   supply: 'A few details about the electricity coming into your home. Most are on a bill, or can be read by looking — never touching — at the meter and fuse box.',
-  loads: 'Where your fuse box is, and the big electrical appliances already in your home. Together with a charger they decide whether your supply has room.',
+  fusebox: 'Where your fuse box is, and how your supply is earthed and wired. Look only; guesses and “not sure” are fine.',
+  loads: 'The big electrical appliances already in your home. Together with a charger they decide whether your supply has room.',
   parking: 'Where the car will stand while it charges.',
   charger: 'Where you’d like the charge point and how a cable could reach it. Rough answers are fine: the surveyor checks everything.',
+  chargepoint: 'The kind of charge point you’d like. If you’re not sure, your installer will talk it through with you at the survey.',
   review: 'Check your answers, fill any gaps you can, then send them to your installer.',
 };
 
@@ -105,9 +108,12 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
           loaded.push(def.label);
         }
       }
+      // Changed there too, to something other than what this tab holds (a save of this very
+      // value that landed late, e.g. sent as the page reloaded, is no conflict).
       const overlap = kept.filter((path) => {
         const def = fieldByPath[path];
-        return def && fromApiValue(def, current.checklist) !== fromApiValue(def, before.checklist);
+        const there = def ? fromApiValue(def, current.checklist) : '';
+        return def && there !== fromApiValue(def, before.checklist) && there !== form.getValues(path);
       });
       setView(current);
       if (loaded.length === 0 && overlap.length === 0) return;
@@ -234,10 +240,10 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
   }, [refused, form]);
 
   // "These details from my installer are right": save what is queued, then confirm the rest.
-  const confirm = useCallback(async () => {
+  const confirm = useCallback(async (paths: string[]) => {
     setConfirming(true);
     const saved = await queue.saveAll();
-    const result = saved ? await confirmDetails(viewRef.current.id) : null;
+    const result = saved ? await confirmDetails(viewRef.current.id, paths) : null;
     setConfirming(false);
     if (result?.kind === 'saved') {
       queue.version = Math.max(queue.version, result.view.version);
@@ -330,11 +336,14 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
                 {/* Disabled until hydrated, so nothing typed before the script runs is lost. */}
                 <fieldset disabled={!view.editable || !hydrated} className="min-w-0">
                   {step === 'about' && <AboutStep caseId={view.id} />}
+                  {step === 'home' && <HomeStep caseId={view.id} />}
                   {step === 'vehicle' && <VehicleStep caseId={view.id} />}
                   {step === 'supply' && <SupplyStep caseId={view.id} />}
-                  {step === 'loads' && <LoadsStep caseId={view.id} />}
+                  {step === 'fusebox' && <FuseBoxStep caseId={view.id} />}
+                  {step === 'loads' && <LoadsStep />}
                   {step === 'parking' && <ParkingStep caseId={view.id} />}
                   {step === 'charger' && <ChargerStep caseId={view.id} />}
+                  {step === 'chargepoint' && <ChargePointStep caseId={view.id} />}
                 </fieldset>
                 {step === 'review' && (
                   <ReviewStep

@@ -9,8 +9,8 @@ export type ChecklistContext = {
   prefilled?: ReadonlySet<string>;
   /** Questions answered before this step opened: their help starts folded. */
   helpRead?: ReadonlySet<string>;
-  /** Confirms the details from the invitation. */
-  confirmDetails?(): Promise<void>;
+  /** Confirms these details from the invitation (one step's). */
+  confirmDetails?(paths: string[]): Promise<void>;
   confirming?: boolean;
   /** Queues a field's new value: `soon` while typing, `now` for a choice or on leaving a field. */
   edit(path: string, value: string, when: 'soon' | 'now'): void;

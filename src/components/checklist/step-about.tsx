@@ -1,4 +1,4 @@
-// Step 1, About you: who to contact and the home where the charge point goes.
+// Steps 1 and 2, About you (who to contact) and Your home (where the charge point goes).
 import { StepEvidence } from './step-evidence';
 import { checkPostcode } from '../../lib/validation/postcode';
 import { checkUkPhone } from '../../lib/validation/phone';
@@ -6,6 +6,7 @@ import { ChoiceField, PREFILLED_MARK, TextField, useFieldValue } from './fields'
 import { useChecklist } from './checklist-context';
 import { fieldDefs } from './field-defs';
 import { CheckIcon } from '../icons';
+import { stepOfField, type StepId } from '../../lib/checklist-steps';
 import { Note } from './notes';
 import { lazy, Suspense, useEffect, useState } from 'react';
 
@@ -25,10 +26,11 @@ export function tidyPostcode(value: string): string {
 }
 
 /** The details the installer filled in from the invitation, and the button that confirms them. */
-function FromYourInstaller() {
+function FromYourInstaller({ step }: { step: StepId }) {
   const { prefilled, confirmDetails, confirming } = useChecklist();
-  if (!prefilled || prefilled.size === 0) return null;
-  const names = fieldDefs.filter((d) => prefilled.has(d.path)).map((d) => d.label.toLowerCase());
+  const here = fieldDefs.filter((d) => prefilled?.has(d.path) && stepOfField(d.path) === step);
+  if (here.length === 0) return null;
+  const names = here.map((d) => d.label.replace(/ \(optional\)$/, '').toLowerCase());
   return (
     <section aria-labelledby="prefilled-heading" className="rounded-lg border-l-4 border-clay-500 bg-clay-50 p-4" data-testid="prefilled-note">
       <h3 id="prefilled-heading" className="font-bold text-ground-900">
@@ -37,7 +39,7 @@ function FromYourInstaller() {
       <p className="mt-1 text-ground-800">
         Your installer has filled in your {names.join(', ')} from your invitation. Change anything that isn’t right, then confirm the rest.
       </p>
-      <button type="button" className="btn-primary mt-3 w-full sm:w-auto" disabled={confirming} onClick={() => void confirmDetails?.()}>
+      <button type="button" className="btn-primary mt-3 w-full sm:w-auto" disabled={confirming} onClick={() => void confirmDetails?.(here.map((d) => d.path))}>
         <CheckIcon className="h-5 w-5" /> {confirming ? 'Confirming…' : 'Yes, these details are right'}
       </button>
     </section>
@@ -47,11 +49,9 @@ function FromYourInstaller() {
 export function AboutStep({ caseId }: { caseId: string }) {
   const [hydrated, setHydrated] = useState(false);
   useEffect(() => setHydrated(true), []);
-  const tenure = useFieldValue('about.tenure');
-  const propertyType = useFieldValue('about.propertyType');
   return (
     <div className="space-y-6">
-      <FromYourInstaller />
+      <FromYourInstaller step="about" />
       <TextField path="about.fullName" autoComplete="name" />
       <TextField
         path="about.email"
@@ -76,6 +76,17 @@ export function AboutStep({ caseId }: { caseId: string }) {
           <TextOptIn caseId={caseId} />
         </Suspense>
       )}
+    </div>
+  );
+}
+
+/** Step 2, Your home: the address where the charge point goes, owning or renting, and the kind of home. */
+export function HomeStep({ caseId }: { caseId: string }) {
+  const tenure = useFieldValue('about.tenure');
+  const propertyType = useFieldValue('about.propertyType');
+  return (
+    <div className="space-y-6">
+      <FromYourInstaller step="home" />
       <fieldset className="space-y-4 rounded-lg border border-ground-100 p-4">
         <legend className="float-left w-full text-lg font-bold text-ground-900">The home where the charge point will go</legend>
         <p className="field-help clear-both !mt-1 pt-1">Give this address even if your post goes somewhere else.</p>

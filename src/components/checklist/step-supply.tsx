@@ -1,5 +1,5 @@
-// Step 3, Your meter and fuse: the MPAN, the main fuse, looped supply, earthing and phases, with
-// photos of the meter and cut-out. The consumer unit and the big loads are the next step (step-loads.tsx).
+// Step 3, Your meter and fuse: the MPAN, the main fuse and a looped supply, with photos of the
+// meter and cut-out. The consumer unit, earthing and phases come next (step-loads.tsx).
 import { StepEvidence } from './step-evidence';
 import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore, UNLISTED_DISTRIBUTOR } from '../../lib/validation/mpan';
 import { CheckIcon } from '../icons';
@@ -94,31 +94,6 @@ export function SupplyStep({ caseId }: { caseId: string }) {
             Look, without touching, at the cut-out. If two thick cables leave it, or one runs through the wall towards the house next
             door, the supply may be looped. If you can’t tell, “I’m not sure” is fine.
           </p>
-        </MoreHelp>
-      </ChoiceField>
-
-      <ChoiceField
-        path="supply.earthing"
-        help="How your wiring connects to earth, which is part of what keeps you safe. Your electrician will check it; tell us if you already know."
-      >
-        <MoreHelp summary="Where could I see which type I have?">
-          <p>
-            Look near the meter for a label, such as one saying “Protective Multiple Earthing”, and at where the green-and-yellow earth
-            wire goes. An old electrical certificate for the home may also name it (TN-C-S, TN-S or TT). Look only; don’t touch any wires.
-          </p>
-        </MoreHelp>
-      </ChoiceField>
-
-      <ChoiceField
-        path="supply.phases"
-        help="Most homes have a single-phase supply. Chargers above 7.4 kW need three phases, so it helps to know."
-      >
-        <MoreHelp summary="How can I tell from the meter and the cut-out?">
-          <p>
-            Look, without touching, at the cut-out: one fuse holder means single phase; three fuse holders side by side (or a wide unit marked
-            “3-phase”) mean three phase. The meter may say “3 ph”, “3 × 230/400 V” or show three readings.
-          </p>
-          <p>Your photos of the meter and cut-out below usually let your installer tell, so “I’m not sure” is fine.</p>
         </MoreHelp>
       </ChoiceField>
 

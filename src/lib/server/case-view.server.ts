@@ -12,6 +12,14 @@ export type CaseView = ReturnType<typeof toCaseView>;
 
 // Actions written for the firm, not the customer ("The office to apply…", "The installer to plan…").
 const STAFF_ACTION = /^(the|our) (office|installer|surveyor|electrician)\b/i;
+// The firm's half of a shared action ("Answer the load questions, or the office to record…").
+const STAFF_CLAUSE = /,? or (the|our) (office|installer|surveyor|electrician) to\b.*$/i;
+
+/** The customer's part of an action, or null when it is the firm's alone. @example customerAction('Answer X, or the office to record Y.') // 'Answer X.' */
+export function customerAction(action: string): string | null {
+  if (STAFF_ACTION.test(action)) return null;
+  return STAFF_CLAUSE.test(action) ? `${action.replace(STAFF_CLAUSE, '').replace(/[.,;:\s]+$/, '')}.` : action;
+}
 
 /**
  * The checks as a viewer may see them: staff get everything; a customer gets their own words
@@ -26,7 +34,7 @@ export function checksFor(checks: CheckResult[], role: Role) {
     title: c.title,
     customerText: c.customerText,
     source: c.source,
-    actions: c.actions.filter((a) => !STAFF_ACTION.test(a)),
+    actions: c.actions.map(customerAction).filter((a): a is string => a !== null),
   }));
 }
 

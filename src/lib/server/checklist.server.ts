@@ -122,22 +122,23 @@ function remainingPrefilled(prefilled: string[], patch: ChecklistPatch): string[
 }
 
 /**
- * The customer confirms the details the installer filled in from the invitation: they count as
- * answered from now on. Nothing else changes; a second confirmation changes nothing.
- * @example await confirmDetails(user, row) // the case view with prefilled: []
+ * The customer confirms details the installer filled in from the invitation (one step's): they
+ * count as answered from now on. Nothing else changes; confirming again changes nothing.
+ * @example await confirmDetails(user, row, ['about.fullName']) // the case view without about.fullName in prefilled
  */
-export async function confirmDetails(user: SessionUser, row: CaseRow) {
+export async function confirmDetails(user: SessionUser, row: CaseRow, paths: readonly string[]) {
   if (!editableStages.includes(row.stage)) {
     throw new HttpError(409, 'conflict', 'This case can no longer be changed. Please contact your installer.', undefined, { reason: 'locked' });
   }
   return transaction(async (tx) => {
     const [current] = await tx.select().from(cases).where(eq(cases.id, row.id)).for('update');
     if (!current) throw new HttpError(404, 'not_found', 'That case was not found.');
-    if (current.prefilled.length === 0) return toCaseView(current, user.role);
+    const remaining = current.prefilled.filter((path) => !paths.includes(path));
+    if (remaining.length === current.prefilled.length) return toCaseView(current, user.role);
     const [saved] = await tx
       .update(cases)
       .set({
-        prefilled: [],
+        prefilled: remaining,
         detailsConfirmedAt: new Date(),
         version: sql`${cases.version} + 1`,
         updatedAt: new Date(),
@@ -146,7 +147,7 @@ export async function confirmDetails(user: SessionUser, row: CaseRow) {
       })
       .where(eq(cases.id, row.id))
       .returning();
-    await audit(tx, { caseId: row.id, actorId: user.id, action: 'checklist.confirmed', entity: 'case', entityId: row.id, before: { prefilled: current.prefilled }, after: { prefilled: [] } });
+    await audit(tx, { caseId: row.id, actorId: user.id, action: 'checklist.confirmed', entity: 'case', entityId: row.id, before: { prefilled: current.prefilled }, after: { prefilled: remaining } });
     if (current.stage !== saved!.stage) {
       await audit(tx, { caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: current.stage }, after: { stage: saved!.stage } });
     }

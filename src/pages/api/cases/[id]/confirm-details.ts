@@ -9,6 +9,6 @@ export const POST = api(async (ctx) => {
   const user = requireRole(ctx, 'customer');
   const row = await findVisibleCase(user, ctx.params.id!);
   if (!row) throw notFound('That case');
-  await parseJsonBody(ctx.request, confirmDetailsSchema);
-  return json(await confirmDetails(user, row));
+  const body = await parseJsonBody(ctx.request, confirmDetailsSchema);
+  return json(await confirmDetails(user, row, body.paths));
 });
