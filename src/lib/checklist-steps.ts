@@ -90,15 +90,16 @@ export type StepProgress = {
  * @example stepProgress({}, ['about.fullName'])[0].toConfirm // ['about.fullName']
  */
 export function stepProgress(checklist: Checklist, prefilled: readonly string[] = []): StepProgress[] {
-  const sections = sectionProgress(checklist);
-  return dataSteps.map(({ id, section, title }) => {
-    const s = sections.find((p) => p.id === section)!;
+  // A step may show a field of another section (the car's socket beside parking), so gaps are
+  // gathered from every section, then handed to the step that shows each one.
+  const gaps = sectionProgress(checklist).flatMap((s) => s.missing.map((field) => `${s.id}.${field}`));
+  const answered = sectionIds.flatMap(([id]) => Object.keys((checklist[id] ?? {}) as Record<string, unknown>).map((key) => `${id}.${key}`));
+  return dataSteps.map(({ id, title }) => {
     const toConfirm = prefilled.filter((path) => stepOfField(path) === id);
-    const unanswered = s.missing.map((field) => `${section}.${field}`).filter((path) => stepOfField(path) === id);
+    const unanswered = gaps.filter((path) => stepOfField(path) === id);
     // An unconfirmed detail from the invitation is still a gap, however filled in it looks.
     const missing = [...unanswered, ...toConfirm.filter((path) => !unanswered.includes(path))];
-    const saved = (checklist[section] ?? {}) as Record<string, unknown>;
-    const started = Object.keys(saved).some((key) => stepOfField(`${section}.${key}`) === id && !toConfirm.includes(`${section}.${key}`));
+    const started = answered.some((path) => stepOfField(path) === id && !toConfirm.includes(path));
     return { id, title, complete: missing.length === 0, missing, toConfirm, started };
   });
 }

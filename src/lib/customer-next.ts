@@ -49,8 +49,8 @@ export function customerNext(checklist: Checklist, prefilled: readonly string[],
     const toAnswer = p.missing.filter((path) => !p.toConfirm.includes(path));
     if (p.toConfirm.length > 0) needed.push({ step: p.id, stepTitle: p.title, text: 'Check the details your installer filled in, and confirm them.' });
     if (toAnswer.length > 0) {
-      const [section] = toAnswer[0]!.split('.');
-      const words = toAnswer.map((path) => fieldLabel(section!, path.slice(section!.length + 1)));
+      // One phrase covers all the load questions, so say each phrase once.
+      const words = [...new Set(toAnswer.map((path) => fieldLabel(path.split('.')[0]!, path.slice(path.indexOf('.') + 1))))];
       needed.push({ step: p.id, stepTitle: p.title, text: `${sentence(`add ${listWords(words)}`)}.` });
     }
     needed.push(...(uploadsByStep.get(p.id) ?? []));

@@ -1,9 +1,9 @@
 // Where the customer stands: the steps, each step's state, the gaps and how answers read back.
 import { checklistPatchSchema, mergeChecklist, type Checklist, type SectionId } from '../../lib/schemas/checklist';
-import { checklistSteps, dataSteps, stepOfField, stepProgress, type DataStepId, type StepProgress } from '../../lib/checklist-steps';
+import { checklistSteps, stepOfField, stepProgress, type DataStepId, type StepProgress } from '../../lib/checklist-steps';
 import { checkMpanCore } from '../../lib/validation/mpan';
 import { checkUkPhone } from '../../lib/validation/phone';
-import { fieldByPath, fieldsOf, optionLabel, type FieldDef } from './field-defs';
+import { fieldByPath, fieldDefs, fieldsOf, optionLabel, type FieldDef } from './field-defs';
 import { checkFormValue, editsToPatch, valueAt, type Edits } from './form-values';
 
 export type { StepId, StepProgress } from '../../lib/checklist-steps';
@@ -99,8 +99,9 @@ export function summaryRows(section: SectionId, checklist: Checklist): { def: Fi
     .map((def) => ({ def, value: displayValue(def, checklist) }));
 }
 
-/** The summary rows of one checklist step (a step shows part of a section). */
+/** The summary rows of one checklist step (a step may show fields of another section). */
 export function stepSummaryRows(step: DataStepId, checklist: Checklist): { def: FieldDef; value: string | null }[] {
-  const section = dataSteps.find((s) => s.id === step)!.section;
-  return summaryRows(section, checklist).filter((row) => stepOfField(row.def.path) === step);
+  return fieldDefs
+    .filter((def) => stepOfField(def.path) === step && isRelevant(def, checklist))
+    .map((def) => ({ def, value: displayValue(def, checklist) }));
 }
