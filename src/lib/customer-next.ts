@@ -59,8 +59,8 @@ export function customerNext(checklist: Checklist, prefilled: readonly string[],
   return { done, needed };
 }
 
-/** "a, b and c". */
-function listWords(words: string[]): string {
+/** "a, b and c". @example listWords(["a", "b", "c"]) // "a, b and c" */
+export function listWords(words: string[]): string {
   if (words.length <= 1) return words[0] ?? '';
   return `${words.slice(0, -1).join(', ')} and ${words.at(-1)}`;
 }

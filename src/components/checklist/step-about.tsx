@@ -7,6 +7,7 @@ import { useChecklist } from './checklist-context';
 import { fieldDefs } from './field-defs';
 import { CheckIcon } from '../icons';
 import { stepOfField, type StepId } from '../../lib/checklist-steps';
+import { listWords } from '../../lib/customer-next';
 import { Note } from './notes';
 import { lazy, Suspense, useEffect, useState } from 'react';
 
@@ -37,7 +38,7 @@ function FromYourInstaller({ step }: { step: StepId }) {
         {PREFILLED_MARK}
       </h3>
       <p className="mt-1 text-ground-800">
-        Your installer has filled in your {names.join(', ')} from your invitation. Change anything that isn’t right, then confirm the rest.
+        Your installer has filled in your {listWords(names)} from your invitation. Change anything that isn’t right, then confirm the rest.
       </p>
       <button type="button" className="btn-primary mt-3 w-full sm:w-auto" disabled={confirming} onClick={() => void confirmDetails?.(here.map((d) => d.path))}>
         <CheckIcon className="h-5 w-5" /> {confirming ? 'Confirming…' : 'Yes, these details are right'}
