@@ -255,11 +255,17 @@ describe('the customer’s home page', () => {
     const card = page.getByTestId(`home-case-${theCase.reference}`);
     await expect(card.getByTestId('home-done').textContent()).resolves.toContain('About you');
     await expect(card.getByTestId('home-done').textContent()).resolves.toContain('Your vehicle');
+    // The first three steps with something to do, in checklist order, each with its things.
     const items = card.getByTestId('home-needed-item');
     await expect(items.count()).resolves.toBe(3);
+    await expect(items.nth(0).textContent()).resolves.toContain('Your meter and fuse');
     await expect(items.nth(0).textContent()).resolves.toContain('the MPAN (supply number) from your electricity bill');
-    await expect(card.getByText(/And \d+ more things/).count()).resolves.toBe(1);
+    await expect(items.nth(0).textContent()).resolves.toContain('Send a photo of your electricity meter.');
+    await expect(items.nth(1).textContent()).resolves.toContain('Your fuse box and earthing');
+    await expect(items.nth(2).textContent()).resolves.toContain('Big electric loads');
+    await expect(card.getByText(/And 3 more steps with something to do/).count()).resolves.toBe(1);
     // The readiness in the customer's words, never an action meant for the firm.
+    await card.getByTestId('home-readiness').locator('summary').click();
     const actions = await card.getByTestId('home-readiness').locator('li li').allTextContents();
     expect(actions.length).toBeGreaterThan(0);
     for (const action of actions) expect(action).not.toMatch(/(^|, or )(the|our) (office|installer|surveyor|electrician) to\b/i);
