@@ -117,6 +117,9 @@ describe('the current step is drawn on the server', () => {
     await expect(page.locator('#step-heading').textContent()).resolves.toBe('Your vehicle');
     await expect(page.getByLabel('Make').inputValue()).resolves.toBe('Example Motors');
     await expect(page.getByLabel('Make').isVisible()).resolves.toBe(true);
+    // Help already read is folded: Make was answered on an earlier visit, Model was not.
+    await expect(page.getByTestId('f-vehicle-make-help-folded').count()).resolves.toBe(1);
+    await expect(page.getByTestId('f-vehicle-model-help-folded').count()).resolves.toBe(0);
     await snap(page, 'first-no-javascript-390');
     // The note inside <noscript> (Playwright's text search skips noscript, so read the page).
     expect(await page.content()).toContain('To change them and save, please switch JavaScript on');
