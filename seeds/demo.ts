@@ -55,7 +55,7 @@ export async function seedDemo(db: Db, password: string) {
     invitedDaysAgo: 4,
     checklist: tannersChecklist(),
   });
-  await createCase(db, { customerId: tobias!.id, stage: 'invited', ...demoHomes.mill, invitedDaysAgo: 1 });
+  await createCase(db, { customerId: tobias!.id, stage: 'invited', ...demoHomes.mill, invitedDaysAgo: 1, fromInvitation: true });
   await createCase(db, {
     customerId: delphine!.id,
     stage: 'sent_for_review',

@@ -138,6 +138,11 @@ export const cases = pgTable(
     changedSinceReadyAt: timestamp('changed_since_ready_at', { withTimezone: true }),
     // What changed since then: [{ at, what, detail }], newest last.
     changesSinceReady: jsonb('changes_since_ready').notNull().default([]),
+    // Checklist answers the installer filled in from the invitation ("about.fullName", …) that the
+    // customer has not yet confirmed or changed: the customer's progress counts them "to check".
+    prefilled: jsonb('prefilled').$type<string[]>().notNull().default([]),
+    // When the customer confirmed the details from the invitation.
+    detailsConfirmedAt: timestamp('details_confirmed_at', { withTimezone: true }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },

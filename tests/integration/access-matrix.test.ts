@@ -41,6 +41,7 @@ const matrix: Record<string, Record<string, Row>> = {
   'api/cases/[id]/readiness.ts': { GET: r(401, 200, 404, 200, 200, 404) },
   'api/cases/[id]/checklist.ts': { PATCH: r(401, 422, 404, 422, 403, 403) },
   'api/cases/[id]/submit.ts': { POST: r(401, 422, 404, 403, 403, 403) },
+  'api/cases/[id]/confirm-details.ts': { POST: r(401, 422, 404, 403, 403, 403) },
   'api/cases/[id]/uploads.ts': { GET: r(401, 200, 404, 200, 200, 404), POST: r(401, 415, 404, 415, 415, 404) },
   'api/cases/[id]/audit.ts': { GET: r(401, 403, 403, 200, 200, 404) },
   'api/cases/[id]/emails.ts': { GET: r(401, 403, 403, 200, 200, 404) },

@@ -8,7 +8,6 @@ import { normaliseVin } from '../../lib/validation/vin';
 import { useChecklist } from './checklist-context';
 import { ChoiceField, TextField, useFieldValue } from './fields';
 import { MoreHelp } from './notes';
-import { ChargePortPicture } from './charge-port-picture';
 import { useVehicleLookup, VehicleLookupNote } from './vehicle-lookup';
 
 /** A valid mark written the usual way ("AB12 CDE"); anything else left as typed. */
@@ -43,7 +42,6 @@ export function VehicleStep({ caseId }: { caseId: string }) {
   const { form } = useChecklist();
   const registration = useFieldValue('vehicle.registration');
   const vin = useFieldValue('vehicle.vin');
-  const chargePort = useFieldValue('vehicle.chargePort');
   const delivery = dateInWords(useFieldValue('vehicle.deliveryDate'));
   // Shown as "not registered" when only a VIN is saved; the choice itself is not stored.
   const [notRegistered, setNotRegistered] = useState(() => {
@@ -113,11 +111,6 @@ export function VehicleStep({ caseId }: { caseId: string }) {
           </p>
         </MoreHelp>
       </ChoiceField>
-      <ChoiceField
-        path="vehicle.chargePort"
-        help="Left and right as you sit in the driver’s seat. This decides whether a cable reaches the car where you park."
-        aside={<ChargePortPicture position={chargePort} />}
-      />
       {condition === 'new' && <StepEvidence caseId={caseId} kinds={['order_agreement']} heading="Order agreement" />}
     </div>
   );
