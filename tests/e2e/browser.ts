@@ -64,6 +64,16 @@ export async function snap(page: Page, name: string) {
   await page.screenshot({ path: join(dir, `${name}.png`), fullPage: true });
 }
 
+/** Screenshots at phone and desktop width from the top, then back to the phone. */
+export async function snapBoth(page: Page, name: string) {
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await snap(page, `${name}-390`);
+  await page.setViewportSize(DESKTOP);
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await snap(page, `${name}-1280`);
+  await page.setViewportSize(PHONE);
+}
+
 /** Signs a customer in the way a real one does: ask for a link, follow the nth one from the inbox. */
 export async function signInByLink(page: Page, email: string, nth = 1) {
   const { linkIn, waitForMessage } = await import('../helpers/mail');

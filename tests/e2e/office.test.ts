@@ -380,6 +380,8 @@ describe('the office, in Chromium', () => {
     await page.waitForURL('**/office');
     await waitForIslands(page);
     await page.goto('/office/invite');
+    // A file chosen before the form's script has run would be dropped, as in a real browser.
+    await waitForIslands(page);
     // The example file offered for download checks out as it stands.
     const example = decodeURIComponent((await page.getByRole('link', { name: 'Download an example file' }).getAttribute('href'))!.replace(/^data:text\/csv;charset=utf-8,/, ''));
     await page.getByLabel('CSV file', { exact: true }).setInputFiles({ name: 'example.csv', mimeType: 'text/csv', buffer: Buffer.from(example) });

@@ -53,7 +53,7 @@ describe('readiness on the Check and send step', () => {
     await snap(page, 'supply-phases-390');
     await page.setViewportSize(DESKTOP);
     await snap(page, 'supply-phases-1280');
-    await page.getByText('How many socket circuits does your fuse box have?').scrollIntoViewIfNeeded();
+    await page.getByText('How many socket circuits does your consumer unit have?').scrollIntoViewIfNeeded();
     await snap(page, 'supply-socket-circuits-1280');
     await page.setViewportSize(PHONE);
     await page.goto(`/my/cases/${theCase.id}#step=review`);

@@ -55,7 +55,13 @@ describe('photos and documents, in Chromium', () => {
     }
     await expect(slot(page, 'parking_evidence').getByTestId('slot-status').textContent()).resolves.toBe('Optional');
     await expect(slot(page, 'cutout_photo').textContent()).resolves.toContain('The fuse carrier with its rating (60, 80 or 100 A) readable');
-    await expect(page.getByTestId('photo-caution').textContent()).resolves.toContain('never remove their covers');
+    const photoCaution = await page.getByTestId('photo-caution').textContent();
+    // The cautions from src/lib/cautions.ts: photos only, cover closed, meter cupboard, appliance rating, 105.
+    expect(photoCaution).toContain('remove covers: photos only');
+    expect(photoCaution).toContain('with its cover closed');
+    expect(photoCaution).toContain('meter cupboard door to look');
+    expect(photoCaution).toContain('read its rating');
+    expect(photoCaution).toContain('call 105');
     await snap(page, 'uploads-empty-390');
 
     // Uppy (about 65 KB compressed) is not fetched until a slot is used.

@@ -81,6 +81,8 @@ describe('compressed responses', () => {
     for (const enc of ['br', 'gzip', 'identity']) {
       const r = await raw(scriptPath, { 'accept-encoding': enc });
       expect(r.headers['cache-control']).toBe('public, max-age=31536000, immutable');
+      // Served before the app's middleware, so the static server sets the sniffing guard itself.
+      expect(r.headers['x-content-type-options']).toBe('nosniff');
     }
   });
 

@@ -42,7 +42,7 @@ export function AboutStep({ caseId }: { caseId: string }) {
         inputMode="tel"
         autoComplete="tel"
         normalise={tidyPhone}
-        help="A mobile is best, so the surveyor can reach you on the day."
+        help="A mobile is best, so your installer can reach you on the day."
       />
       <Suspense fallback={null}>
         <TextOptIn caseId={caseId} />

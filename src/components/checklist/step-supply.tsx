@@ -4,6 +4,7 @@ import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore, UNLISTED_DISTRIB
 import { CheckIcon } from '../icons';
 import { useChecklist } from './checklist-context';
 import { ChoiceField, NumberField, TextField, useFieldValue } from './fields';
+import { caution } from '../../lib/cautions';
 import { Caution, MoreHelp } from './notes';
 
 /** The region line shown once an MPAN core passes its check digit. */
@@ -57,11 +58,10 @@ export function SupplyStep({ caseId }: { caseId: string }) {
   return (
     <div className="space-y-6">
       <Caution>
-        <p>
-          Never open the cut-out, the meter or the consumer unit, and never remove any cover. Everything here can be read from where you
-          stand. If something looks damaged or scorched, keep away and tell your installer.
-        </p>
-        <p>Only your network operator, or someone working for them, may change the main fuse or the cut-out.</p>
+        <p>{caution.photosOnly} Everything here can be read from where you stand.</p>
+        <p>{caution.meterCupboard}</p>
+        <p>{caution.danger}</p>
+        <p>{caution.mainFuseCustomer}</p>
       </Caution>
 
       <MpanField />
@@ -130,8 +130,8 @@ export function SupplyStep({ caseId }: { caseId: string }) {
       <fieldset className="space-y-5 rounded-lg border border-ground-100 p-4">
         <legend className="float-left w-full text-lg font-bold text-ground-900">Big electrical loads already in your home</legend>
         <p className="field-help clear-both !mt-1 pt-1">
-          These add up with a charger at busy times. Give 0 for anything you don’t have. A rating is usually on a label on the front or
-          underside of the appliance, or in its manual.
+          These add up with a charge point at busy times. Give 0 for anything you don’t have. A rating is usually on a label on the front or
+          underside of the appliance, or in its manual. {caution.applianceRating}
         </p>
         <NumberField path="supply.loads.showerKw" placeholder="e.g. 9.5" help="An electric shower heats its own water, usually 7 to 10.5 kW." />
         <ChoiceField path="supply.loads.cooker" columns={2} help="An oven, hob or range that runs on electricity." />
@@ -143,7 +143,7 @@ export function SupplyStep({ caseId }: { caseId: string }) {
         <ChoiceField
           path="supply.loads.socketCircuits"
           columns={3}
-          help="Look at the labels beside the switches in your fuse box (consumer unit), or in your photo of it: count the ones marked sockets, ring or power. Don’t open anything."
+          help="Look at the labels beside the switches in your consumer unit, or in your photo of it: count the ones marked sockets, ring or power. Don’t open anything."
         />
       </fieldset>
       <StepEvidence caseId={caseId} kinds={['meter_photo', 'cutout_photo', 'consumer_unit_photo']} heading="Photos of your supply (photos only — never open anything)" />

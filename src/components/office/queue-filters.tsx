@@ -1,4 +1,5 @@
 // The queue's filter bar: search, readiness, stage, surveyor, "car due within" and flagged photos.
+import { countOf } from '@/lib/grammar';
 import { useEffect, useRef, type ReactNode } from 'react';
 import { lights } from '../../lib/schemas/queue';
 import { stageLabels, stages, type StageId } from '../../lib/stages';
@@ -61,7 +62,7 @@ function MultiPicker({ label, summary, children, testId }: { label: string; summ
 }
 
 export function QueueFilters({ view, searchText, onSearchText, onChange, surveyors }: Props) {
-  const stageSummary = view.stage.length === 0 ? 'Any stage' : view.stage.length === 1 ? stageLabels[view.stage[0]!] : `${view.stage.length} stages`;
+  const stageSummary = view.stage.length === 0 ? 'Any stage' : view.stage.length === 1 ? stageLabels[view.stage[0]!] : countOf(view.stage.length, 'stage');
   return (
     <div className="grid grid-cols-2 gap-3 rounded-lg border border-ground-100 bg-white p-3 shadow-sm md:grid-cols-[minmax(14rem,2fr)_auto_minmax(9rem,1fr)_minmax(9rem,1fr)_minmax(9rem,1fr)_auto] md:items-end">
       <div className="col-span-2 md:col-span-1">

@@ -5,6 +5,7 @@
 import { useEffect, useMemo, useRef, useState, type DragEvent } from 'react';
 import { uploadKindInfo, type UploadItem, type UploadKind } from '../../lib/schemas/uploads';
 import { uploadKindStatus } from '../../lib/readiness/upload-status';
+import { slotCaution } from '../../lib/cautions';
 import { fetchUploads, removeUpload } from './api';
 import { goodPhotoAdvice } from '../../lib/photo-quality';
 import { GoodPhotoPicture } from './good-photo-picture';
@@ -306,6 +307,12 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
         )}
         <span>{hint ?? info.hint}</span>
       </p>
+      {slotCaution(kind) && (
+        <p className="flex items-start gap-2 text-sm text-ground-800" data-testid="slot-caution">
+          <StopIcon className="mt-0.5 h-5 w-5 text-clay-600" />
+          <span>{slotCaution(kind)}</span>
+        </p>
+      )}
 
       {showDashboard && (
         <div className="gw-uppy" aria-describedby={ids.hint}>

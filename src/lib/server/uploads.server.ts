@@ -1,6 +1,7 @@
 // Server-only: receiving, re-encoding, storing, serving and deleting evidence uploads.
 // The body is streamed to a temporary file and cut off at the limit; images are decoded and
 // re-encoded so no metadata survives; the file moves into storage before its row commits.
+import { countOf } from '../grammar';
 import { createHash, randomUUID } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import { mkdir, open, rm, type FileHandle } from 'node:fs/promises';
@@ -127,10 +128,10 @@ const refuse = {
     new HttpError(
       413,
       'payload_too_large',
-      `This case already holds ${files} files (${formatBytes(bytes)}), the most we keep for one home (${uploadLimits.caseMaxFiles} files, ${formatBytes(uploadLimits.caseMaxBytes)}). Please remove a photo you no longer need, or ask your installer.`,
+      `This case already holds ${countOf(files, 'file')} (${formatBytes(bytes)}), the most we keep for one home (${uploadLimits.caseMaxFiles} files, ${formatBytes(uploadLimits.caseMaxBytes)}). Please remove a photo you no longer need, or ask your installer.`,
     ),
   tooFast: (seconds: number) =>
-    new HttpError(429, 'rate_limited', `That is a lot of uploads in a short time. Please wait ${Math.ceil(seconds / 60)} minutes and try again.`, undefined, {
+    new HttpError(429, 'rate_limited', `That is a lot of uploads in a short time. Please wait ${countOf(Math.ceil(seconds / 60), 'minute')} and try again.`, undefined, {
       retryAfterSeconds: seconds,
     }),
   locked: () =>

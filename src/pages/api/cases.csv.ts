@@ -6,7 +6,7 @@ import { queueQueryFromParams } from '../../lib/schemas/queue';
 import { zodIssuesToFields } from '../../lib/schemas/checklist';
 import { stageLabels } from '../../lib/stages';
 
-const header = ['Reference', 'Customer', 'E-mail', 'Address', 'Town', 'Postcode', 'Readiness', 'Open gaps', 'Gaps', 'Stage', 'Invited', 'Days since invite', 'Last customer activity', 'Delivery date', 'Surveyor', 'Survey date', 'Photos flagged'];
+const header = ['Reference', 'Customer', 'E-mail', 'Address', 'Town', 'Postcode', 'Readiness', 'Open checks', 'Checks open', 'Stage', 'Invited', 'Days since invite', 'Last customer activity', 'Delivery date', 'Surveyor', 'Survey date', 'Photos flagged'];
 
 /** GET /api/cases.csv — the same filtered, sorted view as the queue, as CSV (staff only). */
 export const GET = api(async (ctx) => {
