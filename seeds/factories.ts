@@ -1,5 +1,6 @@
 // Test-data factories shared by the demo seed and the tests. Every value is invented.
 import bcrypt from 'bcryptjs';
+import { eq } from 'drizzle-orm';
 import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import { auditLog, cases, users, type Role, type Stage } from '../src/db/schema';
 import { newCaseReference } from '../src/lib/case-reference';
@@ -46,11 +47,28 @@ export type CaseInput = {
   invitedDaysAgo?: number;
   /** What the office or surveyor recorded (measured maximum demand, earthing measure, RA, IΔn). */
   siteMeasures?: SiteMeasures;
+  /** As an invitation does: the customer's name, e-mail, phone and the address go into "About you", waiting to be confirmed. */
+  fromInvitation?: boolean;
 };
+
+/** The "About you" answers an invitation fills in, from the customer and the case's address. */
+async function invitationAbout(db: Db, input: CaseInput): Promise<Record<string, string>> {
+  const [customer] = await db.select().from(users).where(eq(users.id, input.customerId));
+  const about = { fullName: customer?.name, email: customer?.email, phone: customer?.phone, addressLine1: input.addressLine1, town: input.town, postcode: input.postcode };
+  return Object.fromEntries(Object.entries(about).filter((entry): entry is [string, string] => typeof entry[1] === 'string' && entry[1] !== ''));
+}
 
 /** Inserts a case with a fresh reference, and the audit row an invitation makes. */
 export async function createCase(db: Db, input: CaseInput) {
   const invitedAt = new Date(Date.now() - (input.invitedDaysAgo ?? 0) * 86_400_000);
+  let checklist = input.checklist ?? {};
+  let prefilled: string[] = [];
+  if (input.fromInvitation) {
+    const given = (checklist.about ?? {}) as Record<string, unknown>;
+    const invited = await invitationAbout(db, input);
+    checklist = { ...checklist, about: { ...invited, ...given } };
+    prefilled = Object.keys(invited).filter((field) => !(field in given)).map((field) => `about.${field}`);
+  }
   for (let attempt = 0; ; attempt++) {
     try {
       const [row] = await db
@@ -62,12 +80,13 @@ export async function createCase(db: Db, input: CaseInput) {
           addressLine1: input.addressLine1,
           town: input.town,
           postcode: input.postcode,
-          checklist: input.checklist ?? {},
+          checklist,
+          prefilled,
           surveyorId: input.surveyorId ?? null,
           surveyDate: input.surveyDate ?? null,
           invitedAt,
           siteMeasures: input.siteMeasures ?? {},
-          ...readinessColumns(input.checklist ?? {}, [], input.siteMeasures ?? {}),
+          ...readinessColumns(checklist, [], input.siteMeasures ?? {}),
         })
         .returning();
       await db.execute(refreshSearchTextSql(row!.id));

@@ -138,6 +138,11 @@ export const cases = pgTable(
     changedSinceReadyAt: timestamp('changed_since_ready_at', { withTimezone: true }),
     // What changed since then: [{ at, what, detail }], newest last.
     changesSinceReady: jsonb('changes_since_ready').notNull().default([]),
+    // Checklist answers the installer filled in from the invitation ("about.fullName", …) that the
+    // customer has not yet confirmed or changed: the customer's progress counts them "to check".
+    prefilled: jsonb('prefilled').$type<string[]>().notNull().default([]),
+    // When the customer confirmed the details from the invitation.
+    detailsConfirmedAt: timestamp('details_confirmed_at', { withTimezone: true }),
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow(),
   },
@@ -209,6 +214,12 @@ export const uploads = pgTable(
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     storageKey: text('storage_key').notNull().unique(),
     thumbKey: text('thumb_key'),
+    /** The photo check at upload: false when it found a problem, null for documents (and older rows). */
+    qualityOk: boolean('quality_ok'),
+    /** The check's answer `{ ok, problems, measures }` (src/lib/photo-quality.ts). */
+    quality: jsonb('quality'),
+    /** 64-bit difference hash of the photo as 16 hex digits, compared with the case's other photos. */
+    perceptualHash: text('perceptual_hash'),
   },
   (t) => [index('uploads_case_idx').on(t.caseId, t.createdAt)],
 );

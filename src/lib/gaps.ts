@@ -3,9 +3,11 @@
 import { sectionProgress, type Checklist } from './schemas/checklist';
 import { article, listWords } from './grammar';
 import { customerGapLabel } from './vocabulary/fields';
+import { endSentence, quoted } from './punctuation';
 import { requiredUploadKinds } from './readiness/checks/documents';
 import { uploadKindLabels, uploadKindStatus } from './readiness/upload-status';
 import type { ChecklistAnswers, UploadSummary } from './readiness/types';
+
 
 export type CustomerGap = { section: string; title: string; text: string };
 
@@ -17,8 +19,9 @@ export function customerGaps(checklist: Checklist, uploads: readonly UploadSumma
   const gaps: CustomerGap[] = [];
   for (const s of sectionProgress(checklist)) {
     if (s.missing.length === 0) continue;
+    // Several load questions share one label: name each missing thing once, as a list is read.
     const fields = [...new Set(s.missing.map((f) => customerGapLabel(`${s.id}.${f}`)))];
-    gaps.push({ section: s.id, title: s.title, text: `${s.title}: add ${listWords(fields)}.` });
+    gaps.push({ section: s.id, title: s.title, text: endSentence(`${s.title}: add ${listWords(fields)}`) });
   }
   for (const kind of requiredUploadKinds(checklist as ChecklistAnswers)) {
     const status = uploadKindStatus(kind, uploads);
@@ -27,7 +30,7 @@ export function customerGaps(checklist: Checklist, uploads: readonly UploadSumma
       gaps.push({
         section: 'uploads',
         title: 'Photos and documents',
-        text: `Send a new ${uploadKindLabels[kind]}${status.reason ? ` — your installer said: “${status.reason}”` : ''}.`,
+        text: endSentence(`Send a new ${uploadKindLabels[kind]}${status.reason ? ` — your installer said: ${quoted(status.reason)}` : ''}`),
       });
     }
   }

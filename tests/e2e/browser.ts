@@ -90,3 +90,29 @@ export async function signInByLink(page: Page, email: string, nth = 1) {
 export async function waitForIslands(page: Page) {
   await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0, undefined, { timeout: 30_000 });
 }
+
+export const STAFF_PASSWORD = process.env.DEMO_PASSWORD ?? 'groundwork-demo';
+
+/** Signs a member of staff in on the sign-in page's staff tab (demo password unless given). */
+export async function signInStaff(page: Page, email: string, password = STAFF_PASSWORD) {
+  await page.goto('/signin');
+  await page.locator('[data-ready="true"]').waitFor();
+  await page.getByRole('tab', { name: 'Installer staff' }).click();
+  await page.getByLabel('E-mail address').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/**
+ * The customer's photos page, once its slots have hydrated (Astro drops an island's `ssr`
+ * attribute then). Each slot shows a light drop zone; Uppy's widget replaces it once used.
+ */
+export async function openPhotos(page: Page, caseId: string) {
+  await page.goto(`/my/cases/${caseId}/photos`);
+  await page.locator('astro-island:not([ssr]) [data-testid^="upload-slot-"] [data-testid="drop-zone"]').first().waitFor();
+}
+
+/** One upload slot on the photos page. */
+export const uploadSlot = (page: Page, kind: string) => page.getByTestId(`upload-slot-${kind}`);
+/** The drop zone's own picker, or Uppy's once the widget is open: both are named files[]. */
+export const slotFileInput = (page: Page, kind: string) => uploadSlot(page, kind).locator('input[type="file"][name="files[]"]:not([webkitdirectory])');

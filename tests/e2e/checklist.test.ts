@@ -3,7 +3,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
-import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink, snapBoth } from './browser';
+import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink, snapBoth, waitForIslands } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 
@@ -44,6 +44,7 @@ describe('the customer checklist, in Chromium', () => {
 
     // Step 1: About you. Typing and Tab, as on a keyboard.
     await expect.poll(() => page.locator('#step-heading').textContent()).toBe('About you');
+    await waitForIslands(page);
     await expect(page.url()).toContain('#step=about');
     await snapBoth(page, 'checklist-about-empty');
     await page.getByLabel('Full name').pressSequentially('Ines Farrow');
@@ -54,6 +55,11 @@ describe('the customer checklist, in Chromium', () => {
     await page.getByLabel('Phone number').press('Tab');
     // Normalised on leaving the field: national style with the usual spaces.
     await expect.poll(() => page.getByLabel('Phone number').inputValue()).toBe('020 7946 0958');
+    await waitSaved(page);
+    await snapBoth(page, 'checklist-about');
+
+    // Step 2: Your home.
+    await nextStep(page, 'Your home');
     await page.getByLabel('Address line 1').fill('14 Larch Row');
     await page.getByLabel('Town or city').fill('Brackenford');
     await page.getByLabel('Postcode').fill('ab12 3de');
@@ -65,9 +71,9 @@ describe('the customer checklist, in Chromium', () => {
     await page.getByRole('radio', { name: 'A house' }).focus();
     await page.keyboard.press('Space');
     await waitSaved(page);
-    await snapBoth(page, 'checklist-about');
+    await snapBoth(page, 'checklist-home');
 
-    // Step 2: Your vehicle.
+    // Step 3: Your vehicle.
     await nextStep(page, 'Your vehicle');
     await page.getByLabel('Make').fill('Fernway');
     await page.getByRole('radio', { name: 'New', exact: true }).check();
@@ -90,7 +96,6 @@ describe('the customer checklist, in Chromium', () => {
     // Read back in words: 15 March 2027 is a Monday (1 January 2027 is a Friday; +73 days).
     await expect.poll(() => page.getByTestId('f-vehicle-deliveryDate-confirmation').textContent()).toBe('That’s Monday 15 March 2027.');
     await page.getByRole('radio', { name: 'Type 2' }).check();
-    await page.getByRole('radio', { name: 'Front, left' }).check();
     await waitSaved(page);
     // The model is typed and the page reloaded at once, before the autosave delay runs out.
     await page.getByLabel('Model').pressSequentially('Tern 4');
@@ -100,15 +105,14 @@ describe('the customer checklist, in Chromium', () => {
     await expect(page.getByLabel('Make').inputValue()).resolves.toBe('Fernway');
     await expect(page.getByLabel('Registration number').inputValue()).resolves.toBe('AB12 CDE');
     await expect(page.getByRole('radio', { name: 'Type 2' }).isChecked()).resolves.toBe(true);
-    await expect(page.getByRole('radio', { name: 'Front, left' }).isChecked()).resolves.toBe(true);
     await expect.poll(async () => (await savedRow(theCase.id)).checklist, { timeout: 10_000 }).toMatchObject({ vehicle: { model: 'Tern 4' } });
     await waitSaved(page);
     await snapBoth(page, 'checklist-vehicle');
 
-    // Step 3: Your supply. 1312345678906 has the wrong check digit: the weighted sum of the
+    // Step 4: Your meter and fuse. 1312345678906 has the wrong check digit: the weighted sum of the
     // first 12 digits is 1349 (TRADE-REFERENCE worked example), 1349 mod 11 = 7, so the 13th
     // digit must be 7 (MRA/Elexon rule as described in the MPAN article).
-    await nextStep(page, 'Your supply');
+    await nextStep(page, 'Your meter and fuse');
     const mpan = page.getByLabel('MPAN, your 13-digit supply number');
     await expect(mpan.getAttribute('inputmode')).resolves.toBe('numeric');
     await mpan.fill('1312345678906');
@@ -126,9 +130,19 @@ describe('the customer checklist, in Chromium', () => {
     await snap(page, 'checklist-supply-mpan-help-390');
     await page.getByRole('radio', { name: '100 A' }).check();
     await group(page, 'Is the supply shared with a neighbour (looped)?').getByRole('radio', { name: 'No', exact: true }).check();
+    await waitSaved(page);
+    await snapBoth(page, 'checklist-supply');
+
+    // Step 5: the consumer unit, earthing and phases, saved under supply as before.
+    await nextStep(page, 'Your consumer unit and earthing');
     await page.getByLabel('Where is your consumer unit?').fill('Under the stairs');
     await page.getByRole('radio', { name: 'I don’t know' }).check();
     await page.getByRole('radio', { name: 'Single phase' }).check();
+    await waitSaved(page);
+    await snapBoth(page, 'checklist-fusebox');
+
+    // Step 6: the big loads (supply.loads.*).
+    await nextStep(page, 'Big electric loads');
     await page.getByLabel('Electric shower rating').fill('9.5');
     await group(page, 'An electric cooker, oven or hob?').getByRole('radio', { name: 'Yes', exact: true }).check();
     await group(page, 'An immersion heater for hot water?').getByRole('radio', { name: 'No', exact: true }).check();
@@ -138,37 +152,42 @@ describe('the customer checklist, in Chromium', () => {
     await group(page, 'Solar panels or a home battery?').getByRole('radio', { name: 'Yes', exact: true }).check();
     await group(page, 'How many socket circuits does your consumer unit have?').getByRole('radio', { name: '3', exact: true }).check();
     await waitSaved(page);
-    await snapBoth(page, 'checklist-supply');
+    await snapBoth(page, 'checklist-loads');
 
-    // Step 4: Parking.
+    // Step 7: Parking, with where the car's socket is (saved under vehicle, as before).
     await nextStep(page, 'Parking');
     await page.getByRole('radio', { name: 'A driveway at my home' }).check();
     await page.getByLabel('How many cars park there?').fill('2');
     await page.getByRole('radio', { name: 'Reversing in' }).check();
+    await page.getByRole('radio', { name: 'Front, left' }).check();
     await waitSaved(page);
     await snapBoth(page, 'checklist-parking');
 
-    // Step 5: Charge point and cable route; the conditional questions appear when needed.
+    // Steps 8 and 9: Charge point and cable route, then which charge point; the conditional questions appear when needed.
     await nextStep(page, 'Charge point and cable route');
     await page.getByLabel('Where would you like the charge point?').fill('Front wall, left of the door');
     await page.getByLabel('Rough cable length from the consumer unit').fill('8');
     await page.getByRole('radio', { name: 'Along the outside wall' }).check();
     await group(page, 'Is there soft ground near the charge point?').getByRole('radio', { name: 'Yes', exact: true }).check();
     await page.getByLabel('How far is the soft ground from the charge point?').fill('3');
+    await waitSaved(page);
+    await snapBoth(page, 'checklist-charger');
+    await nextStep(page, 'Which charge point');
     await page.getByRole('radio', { name: 'Tethered: cable attached' }).check();
     await page.getByLabel('Length of the attached cable').fill('5');
     await page.getByRole('radio', { name: '7.4 kW' }).check();
     await waitSaved(page);
-    await snapBoth(page, 'checklist-charger');
+    await snapBoth(page, 'checklist-chargepoint');
 
     // The step list on a phone: opens on demand and says each step's state in words.
     await page.getByRole('button', { name: 'All steps' }).click();
-    await expect.poll(() => page.getByTestId('step-link-supply').textContent()).toContain('1 to answer');
+    await expect.poll(() => page.getByTestId('step-link-loads').textContent()).toContain('1 to answer');
+    await expect(page.getByTestId('step-link-supply').textContent()).resolves.toContain('Complete');
     await expect(page.getByTestId('step-link-about').textContent()).resolves.toContain('Complete');
     await snap(page, 'checklist-step-list-390');
     await page.getByTestId('step-link-review').click();
 
-    // Step 6: Check and send. The one gap is listed with what it holds up.
+    // Step 10: Check and send. The one gap is listed with what it holds up.
     await expect.poll(() => page.locator('#step-heading').textContent()).toBe('Check and send');
     await expect(page.getByText('Storage heaters, total rating').first().isVisible()).resolves.toBe(true);
     await expect(page.getByTestId('summary-supply').textContent()).resolves.toContain('13 1234 5678 907 (Merseyside, Cheshire and North Wales)');
@@ -242,9 +261,9 @@ describe('the customer checklist, in Chromium', () => {
     const theCase = await createCase(db, { customerId: user.id, checklist: { about: { town: 'Oldbridge' } } });
     const { page: first, context } = await newPage(PHONE);
     await signInByLink(first, user.email);
-    await first.goto(`/my/cases/${theCase.id}#step=about`);
+    await first.goto(`/my/cases/${theCase.id}#step=home`);
     const second = await context.newPage();
-    await second.goto(`/my/cases/${theCase.id}#step=about`);
+    await second.goto(`/my/cases/${theCase.id}#step=home`);
     await expect.poll(() => second.getByLabel('Town or city').inputValue()).toBe('Oldbridge');
     await expect.poll(() => first.getByLabel('Town or city').inputValue()).toBe('Oldbridge');
 
@@ -254,16 +273,16 @@ describe('the customer checklist, in Chromium', () => {
     await waitSaved(second);
     await expect(first.getByLabel('Town or city').inputValue()).resolves.toBe('Oldbridge');
 
-    // The first tab saves its name with the old version: 409, newer town loaded, name kept and saved.
-    await first.getByLabel('Full name').fill('Tomasz Hale');
-    await first.getByLabel('Full name').press('Tab');
+    // The first tab saves the first address line with the old version: 409, newer town loaded, its own answer kept and saved.
+    await first.getByLabel('Address line 1').fill('12 Weir Road');
+    await first.getByLabel('Address line 1').press('Tab');
     await expect.poll(() => first.getByTestId('checklist-notice').textContent()).toContain('changed on another device or tab');
     await expect.poll(() => first.getByLabel('Town or city').inputValue()).toBe('Newbridge');
-    await expect(first.getByLabel('Full name').inputValue()).resolves.toBe('Tomasz Hale');
+    await expect(first.getByLabel('Address line 1').inputValue()).resolves.toBe('12 Weir Road');
     await waitSaved(first);
     await snap(first, 'checklist-conflict-390');
     const row = await savedRow(theCase.id);
-    expect(row.checklist).toEqual({ about: { town: 'Newbridge', fullName: 'Tomasz Hale' } });
+    expect(row.checklist).toEqual({ about: { town: 'Newbridge', addressLine1: '12 Weir Road' } });
     expect(row.version).toBe(3); // 1 at creation, +1 per save that changed something
     expect(problemsOf(first)).toEqual([]);
     await context.close();

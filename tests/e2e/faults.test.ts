@@ -6,7 +6,7 @@ import net from 'node:net';
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
-import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink } from './browser';
+import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink, waitForIslands } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 
@@ -25,6 +25,7 @@ async function customerOnStep(step: string, checklist: Record<string, unknown> =
   const { page, context } = await newPage(PHONE);
   await signInByLink(page, user.email);
   await page.goto(`/my/cases/${theCase.id}#step=${step}`);
+  await waitForIslands(page);
   return { user, theCase, page, context };
 }
 
@@ -97,9 +98,9 @@ describe('autosave under faults', () => {
   });
 
   it('the same answer changed in two tabs: the conflict is shown, not silently overwritten', async () => {
-    const { theCase, page: first, context } = await customerOnStep('about', { about: { town: 'Oldbridge' } });
+    const { theCase, page: first, context } = await customerOnStep('home', { about: { town: 'Oldbridge' } });
     const second = await context.newPage();
-    await second.goto(`/my/cases/${theCase.id}#step=about`);
+    await second.goto(`/my/cases/${theCase.id}#step=home`);
     await expect.poll(() => first.getByLabel('Town or city').inputValue()).toBe('Oldbridge');
     await expect.poll(() => second.getByLabel('Town or city').inputValue()).toBe('Oldbridge');
     // The first tab's save is held back while the second tab saves the same field.

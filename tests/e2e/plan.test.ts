@@ -161,6 +161,27 @@ describe('the driveway plan, in Chromium', () => {
     await context.close();
   });
 
+  it('with one car in the household, the other bay is empty and the cable goes straight', async () => {
+    // The same driveway as above, but the parking step says one car: bay 1 holds nothing. Nose
+    // in: from the charge point (3, 0) straight to the port (3.925, 6.25) — the car's own body is
+    // not in its own way — √(0.925² + 6.25²) = √39.918125 = 6.318, + 1 slack = 7.318 → "needs
+    // 7.3 m". Reversed: to (2.075, 9.15), √(0.925² + 9.15²) = √84.578125 = 9.197, + 1 = 10.197 →
+    // "needs 10.2 m". (Worked by hand from the geometry above.)
+    const user = await createUser(db, { role: 'customer', name: 'Odile Marchbank' });
+    const row = await createCase(db, {
+      customerId: user.id,
+      checklist: { vehicle: { chargePort: 'front-left' }, charger: { preference: 'tethered', tetherMetres: 5 }, parking: { habit: 'varies', cars: 1 } },
+    });
+    const { page, context } = await newPage(PHONE);
+    await signInByLink(page, user.email);
+    await openPlan(page, row.id);
+    await page.getByRole('button', { name: 'Add one behind it' }).click();
+    await expect(verdictText(page, 'nose-in-2')).resolves.toContain('needs 7.3 m');
+    await expect(verdictText(page, 'reverse-in-2')).resolves.toContain('needs 10.2 m');
+    expect(problemsOf(page)).toEqual([]);
+    await context.close();
+  });
+
   it('answers 404 for a case that is not the customer’s', async () => {
     const owner = await createUser(db, { role: 'customer' });
     const other = await createUser(db, { role: 'customer' });

@@ -45,14 +45,19 @@ describe('readiness on the Check and send step', () => {
     await page.goto(`/my/cases/${theCase.id}#step=supply`);
     await page.getByRole('radio', { name: '100 A' }).check();
     await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 10_000 }).toBe('Saved');
+    // Phases sit with the fuse box and earthing, the socket circuits with the big loads.
+    await page.goto(`/my/cases/${theCase.id}#step=fusebox`);
     await page.getByRole('radio', { name: 'Single phase' }).check();
-    await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 10_000 }).toBe('Saved');
-    await page.getByRole('radio', { name: '2', exact: true }).check();
     await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 10_000 }).toBe('Saved');
     await page.getByText('Is your supply single phase or three phase?').scrollIntoViewIfNeeded();
     await snap(page, 'supply-phases-390');
     await page.setViewportSize(DESKTOP);
     await snap(page, 'supply-phases-1280');
+    await page.setViewportSize(PHONE);
+    await page.goto(`/my/cases/${theCase.id}#step=loads`);
+    await page.getByRole('radio', { name: '2', exact: true }).check();
+    await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 10_000 }).toBe('Saved');
+    await page.setViewportSize(DESKTOP);
     await page.getByText('How many socket circuits does your consumer unit have?').scrollIntoViewIfNeeded();
     await snap(page, 'supply-socket-circuits-1280');
     await page.setViewportSize(PHONE);
@@ -75,8 +80,8 @@ describe('readiness on the Check and send step', () => {
     await snap(page, 'check-and-send-1280');
     await page.setViewportSize(PHONE);
 
-    // The charge point step leads to the driveway plan, which gives a reach verdict.
-    await page.goto(`/my/cases/${theCase.id}#step=charger`);
+    // The "Which charge point" step leads to the driveway plan, which gives a reach verdict.
+    await page.goto(`/my/cases/${theCase.id}#step=chargepoint`);
     await page.getByRole('link', { name: 'Draw my driveway' }).click();
     await page.waitForURL(`**/my/cases/${theCase.id}/plan`);
     await expect.poll(() => page.getByTestId('plan-verdict-nose-in').textContent(), { timeout: 15_000 }).toMatch(/reach/i);

@@ -238,3 +238,63 @@ describe('POST /api/cases/:id/submit', () => {
     expect((await other.client.send('POST', `/api/cases/${c.case!.id}/submit`, { acknowledgeGaps: true })).status).toBe(404);
   });
 });
+
+describe('POST /api/cases/:id/confirm-details', () => {
+  const confirm = (c: Signed, body: unknown) =>
+    c.client.json(`/api/cases/${c.case!.id}/confirm-details`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) });
+
+  it('confirms one step’s details from the invitation, leaves the others marked, and records who did it', async () => {
+    const c = await newCustomer({ addressLine1: '3 Mill Lane', town: 'Quillbury', postcode: 'AB12 7EF', fromInvitation: true });
+    const before = await rowOf(c);
+    expect([...before.prefilled].sort()).toEqual(['about.addressLine1', 'about.email', 'about.fullName', 'about.postcode', 'about.town']);
+    const r = await confirm(c, { paths: ['about.fullName', 'about.email', 'about.phone'] });
+    expect(r.status).toBe(200);
+    expect([...r.body.prefilled].sort()).toEqual(['about.addressLine1', 'about.postcode', 'about.town']);
+    const after = await rowOf(c);
+    expect(after).toMatchObject({ stage: 'filling_in', version: before.version + 1, checklist: before.checklist });
+    expect(after.detailsConfirmedAt).not.toBeNull();
+    const [entry] = await db
+      .select()
+      .from(schema.auditLog)
+      .where(and(eq(schema.auditLog.caseId, c.case!.id), eq(schema.auditLog.action, 'checklist.confirmed')));
+    expect(entry).toMatchObject({ actorId: c.user.id, after: { prefilled: ['about.addressLine1', 'about.town', 'about.postcode'] } });
+    // Again: nothing left to confirm there, nothing changes.
+    const again = await confirm(c, { paths: ['about.fullName'] });
+    expect(again.status).toBe(200);
+    expect((await rowOf(c)).version).toBe(after.version);
+  });
+
+  it('an answer of the customer’s own takes a detail off the list; the address columns keep what the save did not send', async () => {
+    const c = await newCustomer({ addressLine1: '3 Mill Lane', town: 'Quillbury', postcode: 'AB12 7EF', fromInvitation: true });
+    expect((await patch(c, { about: { town: 'Quillbury Green' } })).status).toBe(200);
+    const row = await rowOf(c);
+    expect(row.prefilled).not.toContain('about.town');
+    expect(row.prefilled).toContain('about.postcode');
+    expect(row).toMatchObject({ town: 'Quillbury Green', addressLine1: '3 Mill Lane', postcode: 'AB12 7EF' });
+    expect((await patch(c, { about: { fullName: 'Test Customer-Reyes' } })).status).toBe(200);
+    expect(await rowOf(c)).toMatchObject({ town: 'Quillbury Green', addressLine1: '3 Mill Lane', postcode: 'AB12 7EF' });
+  });
+
+  it('refuses a body that names no detail or one the invitation cannot fill, changing nothing', async () => {
+    const c = await newCustomer({ addressLine1: '3 Mill Lane', fromInvitation: true });
+    const before = await rowOf(c);
+    for (const body of [{}, { paths: [] }, { paths: ['about.tenure'] }, { paths: ['about.fullName'], extra: true }]) {
+      const r = await confirm(c, body);
+      expect(r.status, JSON.stringify(body)).toBe(422);
+      expect(r.body.error.code).toBe('invalid');
+      expect(Object.keys(r.body.error.fields).length).toBeGreaterThan(0);
+    }
+    expect(await rowOf(c)).toMatchObject({ version: before.version, prefilled: before.prefilled });
+  });
+
+  it('answers 404 for someone else’s case and 409 once the case is closed for changes', async () => {
+    const c = await newCustomer({ fromInvitation: true });
+    const other = await newCustomer({});
+    const r = await other.client.json(`/api/cases/${c.case!.id}/confirm-details`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ paths: ['about.fullName'] }) });
+    expect(r.status).toBe(404);
+    await db.update(schema.cases).set({ stage: 'survey_booked' }).where(eq(schema.cases.id, c.case!.id));
+    const locked = await confirm(c, { paths: ['about.fullName'] });
+    expect(locked.status).toBe(409);
+    expect((await rowOf(c)).prefilled).toContain('about.fullName');
+  });
+});

@@ -29,6 +29,8 @@ describe('POST /api/cases — invitations', () => {
     const row = await caseRow(r.body.id);
     expect(row).toMatchObject({ stage: 'invited', postcode: 'AB1 2DE', addressLine1: '4 Lantern Yard' });
     expect(row.checklist).toMatchObject({ about: { fullName: 'Imogen Fairweather', email, phone: '+441134960123' } });
+    // Filled in from the invitation, so marked for the customer to check until they confirm it.
+    expect([...row.prefilled].sort()).toEqual(['about.addressLine1', 'about.email', 'about.fullName', 'about.phone', 'about.postcode', 'about.town']);
     const mail = await waitForMessage(email);
     expect(mail.text).toContain('MPAN');
     expect(mail.text).toContain('Car due in spring.');

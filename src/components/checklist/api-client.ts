@@ -11,6 +11,8 @@ export type CaseView = {
   version: number;
   checklist: Checklist;
   progress: SectionProgress[];
+  /** Details the installer filled in from the invitation, not yet confirmed by the customer. */
+  prefilled?: string[];
   warnings: Record<string, string>;
   region: string | null;
   editable: boolean;
@@ -99,4 +101,19 @@ export async function submitCase(caseId: string, acknowledgeGaps: boolean): Prom
   if (r.status === 409) return { kind: 'already-sent', message: error?.message ?? 'This checklist has already been sent.' };
   if (r.status === 401) return { kind: 'signed-out' };
   return { kind: 'failed', message: error?.message ?? 'Something went wrong on our side. Please try again.' };
+}
+
+/** POST "these details from my installer are right". @example await confirmDetails(id, ['about.fullName']) // { kind: 'saved', view } */
+export async function confirmDetails(caseId: string, paths: string[]): Promise<PatchOutcome> {
+  const r = await call(`${casePath(caseId)}/confirm-details`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ paths }),
+  });
+  if (!r) return { kind: 'failed' };
+  const error = (r.body as ErrorBody | null)?.error;
+  if (r.status === 200) return { kind: 'saved', view: r.body as CaseView };
+  if (r.status === 409) return { kind: 'locked', message: error?.message ?? 'This checklist can no longer be changed.' };
+  if (r.status === 401) return { kind: 'signed-out' };
+  return { kind: 'failed' };
 }

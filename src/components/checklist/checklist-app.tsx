@@ -1,106 +1,76 @@
 // The customer's checklist island: loads the case, shows one step at a time (the step lives in
 // the URL hash, so a reload stays put), and saves every answer as the customer goes.
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
-import { useForm } from 'react-hook-form';
+import { get, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { customerStage } from '@/lib/vocabulary/stages';
-import { ChevronLeftIcon, ChevronRightIcon, InfoIcon, SpinnerIcon, StopIcon, WarningIcon } from '../icons';
-import { loadCase, patchChecklist, type CaseView, type LoadOutcome } from './api-client';
+import { ChevronLeftIcon, ChevronRightIcon, InfoIcon, StopIcon, WarningIcon } from '../icons';
+import { confirmDetails, loadCase, patchChecklist, type CaseView } from './api-client';
 import { AutosaveQueue, type QueueListener, type SaveStatus } from './autosave-queue';
 import { ChecklistCtx, fieldId, type ChecklistContext } from './checklist-context';
 import { fieldByPath, fieldDefs } from './field-defs';
-import { checklistToForm, formSchema, fromApiValue, type FormValues } from './form-values';
-import { localChecklist, progressOf, stepFromHash, stepHash, steps, type StepId } from './progress';
+import { checkFormValue, checklistToForm, formSchema, fromApiValue, type FormValues } from './form-values';
+import { localChecklist, progressOf, resumeStep, stepFromHash, stepHash, stepOfField, steps, type StepId } from './progress';
+import { stepTitle } from '../../lib/checklist-steps';
 import { SaveStatusLine } from './save-status';
 import { StepList } from './step-list';
-import { AboutStep } from './step-about';
+import { AboutStep, HomeStep } from './step-about';
 import { VehicleStep } from './step-vehicle';
 import { SupplyStep } from './step-supply';
+import { FuseBoxStep, LoadsStep } from './step-loads';
 import { ParkingStep } from './step-parking';
-import { ChargerStep } from './step-charger';
+import { ChargePointStep, ChargerStep } from './step-charger';
 import { isSent, ReviewStep } from './step-review';
 
-type Props = { caseId: string };
+type Props = {
+  /** The case as the server rendered it, so the step is drawn before any script runs. */
+  initialView: CaseView;
+};
 
+// Each step's opening words (step titles and these intros are the steps' own words).
 const intros: Record<StepId, string> = {
-  about: 'Who we’re talking to, and the home the charge point is for.',
+  about: 'Who we’re talking to, and how your installer can reach you.',
+  home: 'The home the charge point is for.',
   vehicle: 'The car decides the plug and how far the cable must reach. If it hasn’t arrived yet, answer from your order.',
-  supply: 'A few details about the electricity coming into your home. Most are on a bill, or can be read by looking — never touching — at the meter and consumer unit.',
+  supply: 'A few details about the electricity coming into your home. Most are on a bill, or can be read by looking — never touching — at the meter and cut-out.',
+  fusebox: 'Where your consumer unit is, and how your supply is earthed and wired. Look only; guesses and “not sure” are fine.',
+  loads: 'The big electrical appliances already in your home. Together with a charge point they decide whether your supply has room.',
   parking: 'Where the car will stand while it charges.',
   charger: 'Where you’d like the charge point and how a cable could reach it. Rough answers are fine: your installer checks everything at the survey.',
+  chargepoint: 'The kind of charge point you’d like. If you’re not sure, your installer will talk it through with you at the survey.',
   review: 'Check your answers, fill any gaps you can, then send them to your installer.',
 };
 
-/** The island: fetches the case, then hands it to the form. @example <ChecklistApp caseId={id} client:only="react" /> */
-export default function ChecklistApp({ caseId }: Props) {
-  const [load, setLoad] = useState<LoadOutcome | { kind: 'loading' }>({ kind: 'loading' });
-  const fetchCase = useCallback(async () => {
-    setLoad({ kind: 'loading' });
-    setLoad(await loadCase(caseId));
-  }, [caseId]);
-  useEffect(() => void fetchCase(), [fetchCase]);
-
-  if (load.kind === 'loaded') return <ChecklistForm initialView={load.view} />;
-  return <LoadState state={load} retry={() => void fetchCase()} />;
-}
-
-function LoadState({ state, retry }: { state: Exclude<LoadOutcome, { kind: 'loaded' }> | { kind: 'loading' }; retry(): void }) {
-  if (state.kind === 'loading') {
-    return (
-      <p className="card flex items-center gap-2" role="status">
-        <SpinnerIcon /> Loading your checklist…
-      </p>
-    );
-  }
-  const words = {
-    'not-found': ['We couldn’t find that checklist', 'It may have been closed, or it isn’t yours to see.'],
-    'signed-out': ['Please sign in again', 'Your sign-in has run out. Your saved answers are safe.'],
-    failed: ['We couldn’t load your checklist', 'Please check your connection and try again.'],
-  }[state.kind];
-  return (
-    <div className="card" role="alert">
-      <h2 className="flex items-center gap-2 text-xl font-bold">
-        <StopIcon className="h-6 w-6 text-blocked" /> {words[0]}
-      </h2>
-      <p className="mt-2">{words[1]}</p>
-      <div className="mt-4">
-        {state.kind === 'failed' && (
-          <button type="button" className="btn-primary" onClick={retry}>
-            Try again
-          </button>
-        )}
-        {state.kind === 'signed-out' && (
-          <a className="btn-primary" href={`/signin?callbackUrl=${encodeURIComponent(window.location.pathname)}`}>
-            Sign in
-          </a>
-        )}
-        {state.kind === 'not-found' && (
-          <a className="btn-primary" href="/my">
-            Go to my home
-          </a>
-        )}
-      </div>
-    </div>
-  );
+/**
+ * The island: drawn on the server with the case's answers, then hydrated in the browser.
+ * @example <ChecklistApp client:load initialView={toCaseView(row, 'customer')} />
+ */
+export default function ChecklistApp({ initialView }: Props) {
+  return <ChecklistForm initialView={initialView} />;
 }
 
 type Notice = { tone: 'info' | 'attention' | 'blocked'; body: ReactNode };
 
-// The first step with something missing, so a returning customer lands where they left off.
-function resumeStep(view: CaseView): StepId {
-  return view.progress.find((p) => !p.complete)?.id ?? 'review';
-}
-
-function useHashStep(view: CaseView): StepId {
-  const [step, setStep] = useState<StepId>(() => stepFromHash(window.location.hash) ?? resumeStep(view));
+// The server knows no URL hash, so it draws the step a returning customer would resume at; the
+// browser then moves to the hash's step (after hydration, so both first draws are the same).
+function useHashStep(initial: StepId): { step: StepId; fromHash: boolean } {
+  const [state, setState] = useState({ step: initial, fromHash: false });
   useEffect(() => {
-    const onHash = () => setStep(stepFromHash(window.location.hash) ?? 'about');
+    const onHash = () => setState({ step: stepFromHash(window.location.hash) ?? 'about', fromHash: false });
     window.addEventListener('hashchange', onHash);
-    if (!stepFromHash(window.location.hash)) window.history.replaceState(null, '', stepHash(step));
+    const hashed = stepFromHash(window.location.hash);
+    if (!hashed) window.history.replaceState(null, '', stepHash(initial));
+    else if (hashed !== initial) setState({ step: hashed, fromHash: true });
     return () => window.removeEventListener('hashchange', onHash);
     // Runs once on purpose: after the first render the step comes from the hash alone.
   }, []);
-  return step;
+  return state;
+}
+
+/** The first invalid field's element on the page (a text box, or a choice's first option). */
+function fieldElement(path: string): HTMLElement | null {
+  const id = fieldId(path);
+  return document.getElementById(id) ?? document.querySelector<HTMLElement>(`[data-testid="${id}"] input`);
 }
 
 function ChecklistForm({ initialView }: { initialView: CaseView }) {
@@ -112,7 +82,11 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
   }, []);
   const [status, setStatus] = useState<SaveStatus>({ kind: 'idle' });
   const [notice, setNotice] = useState<Notice | null>(null);
-  const step = useHashStep(initialView);
+  const [hydrated, setHydrated] = useState(false);
+  useEffect(() => setHydrated(true), []);
+  const { step, fromHash } = useHashStep(resumeStep(progressOf(initialView.checklist, initialView.prefilled ?? [])));
+  const [problem, setProblem] = useState('');
+  const [confirming, setConfirming] = useState(false);
   const heading = useRef<HTMLHeadingElement>(null);
   const top = useRef<HTMLDivElement>(null);
   const form = useForm<FormValues>({
@@ -134,9 +108,12 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
           loaded.push(def.label);
         }
       }
+      // Changed there too, to something other than what this tab holds (a save of this very
+      // value that landed late, e.g. sent as the page reloaded, is no conflict).
       const overlap = kept.filter((path) => {
         const def = fieldByPath[path];
-        return def && fromApiValue(def, current.checklist) !== fromApiValue(def, before.checklist);
+        const there = def ? fromApiValue(def, current.checklist) : '';
+        return def && there !== fromApiValue(def, before.checklist) && there !== form.getValues(path);
       });
       setView(current);
       if (loaded.length === 0 && overlap.length === 0) return;
@@ -229,7 +206,7 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
   // A new step: save what is queued, and take keyboard and screen-reader users to its heading.
   const firstRender = useRef(true);
   useEffect(() => {
-    if (firstRender.current) {
+    if (firstRender.current || fromHash) {
       firstRender.current = false;
       return;
     }
@@ -237,11 +214,66 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
     setNotice((n) => (n?.tone === 'info' ? null : n));
     top.current?.scrollIntoView({ block: 'start' });
     heading.current?.focus({ preventScroll: true });
-  }, [step, queue]);
+  }, [step, fromHash, queue]);
+
+  // A refused save: take the customer to the first answer marked in red on this step, and say so.
+  const refused = status.kind === 'invalid' ? status.paths.join(' ') : '';
+  useEffect(() => {
+    if (!refused) return setProblem('');
+    const found = refused
+      .split(' ')
+      .map((path) => ({ path, el: fieldElement(path) }))
+      .filter((f): f is { path: string; el: HTMLElement } => f.el !== null)
+      .sort((a, b) => (a.el.compareDocumentPosition(b.el) & Node.DOCUMENT_POSITION_FOLLOWING ? -1 : 1));
+    const first = found[0];
+    const path = first?.path ?? refused.split(' ')[0]!;
+    const check = checkFormValue(path, String(form.getValues(path) ?? ''));
+    const why = (get(form.formState.errors, path) as { message?: string } | undefined)?.message ?? (check.ok ? '' : check.message);
+    const label = fieldByPath[path]?.label ?? path;
+    if (!first) {
+      setProblem(`Not saved: ${label}, on the step “${stepTitle(stepOfField(path))}”. ${why}`);
+      return;
+    }
+    first.el.scrollIntoView({ block: 'center' });
+    if (document.activeElement !== first.el) first.el.focus({ preventScroll: true });
+    setProblem(`Not saved: please check ${label}. ${why}`);
+  }, [refused, form]);
+
+  // "These details from my installer are right": save what is queued, then confirm the rest.
+  const confirm = useCallback(async (paths: string[]) => {
+    setConfirming(true);
+    const saved = await queue.saveAll();
+    const result = saved ? await confirmDetails(viewRef.current.id, paths) : null;
+    setConfirming(false);
+    if (result?.kind === 'saved') {
+      queue.version = Math.max(queue.version, result.view.version);
+      setView(result.view);
+      setNotice({ tone: 'info', body: <p>Thank you — your details are confirmed.</p> });
+    } else if (result?.kind === 'locked') {
+      setNotice({ tone: 'blocked', body: <p>{result.message}</p> });
+    } else {
+      setNotice({ tone: 'attention', body: <p>We couldn’t confirm your details just now. Please check your connection and try again.</p> });
+    }
+  }, [queue, setView]);
+
+  const pending = queue.pending();
+  const checklist = localChecklist(view.checklist, pending);
+  // Details from the invitation still waiting for the customer's word (an edit makes them theirs).
+  const prefilled = (view.prefilled ?? []).filter((path) => !(path in pending));
+  const prefilledKey = prefilled.join(' ');
+  // The help of questions already answered when a step opens has been read: it starts folded.
+  const helpRead = useMemo(
+    () => new Set(fieldDefs.filter((d) => stepOfField(d.path) === step && fromApiValue(d, viewRef.current.checklist) !== '' && !viewRef.current.prefilled?.includes(d.path)).map((d) => d.path)),
+    [step],
+  );
 
   const ctx = useMemo<ChecklistContext>(
     () => ({
       form,
+      prefilled: new Set(prefilledKey ? prefilledKey.split(' ') : []),
+      helpRead,
+      confirmDetails: confirm,
+      confirming,
       edit(path, value, when) {
         const def = fieldByPath[path];
         if (!def || !viewRef.current.editable) return;
@@ -250,12 +282,10 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
         queue.edit(path, value, when);
       },
     }),
-    [form, queue],
+    [form, queue, prefilledKey, helpRead, confirm, confirming],
   );
 
-  const pending = queue.pending();
-  const checklist = localChecklist(view.checklist, pending);
-  const progress = progressOf(checklist);
+  const progress = progressOf(checklist, prefilled);
   const index = steps.findIndex((s) => s.id === step);
   const current = steps[index]!;
   const previous = steps[index - 1];
@@ -274,7 +304,7 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
           </p>
         </header>
         <div className="lg:grid lg:grid-cols-[17rem_minmax(0,1fr)] lg:items-start lg:gap-8">
-          <StepList current={step} progress={progress} checklist={checklist} sent={sent} />
+          <StepList current={step} progress={progress} sent={sent} />
           <div className="min-w-0 space-y-4">
             {!view.editable && (
               <NoticeBox
@@ -297,14 +327,22 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
                 </div>
                 <SaveStatusLine status={status} />
               </div>
+              <p aria-live="assertive" className="sr-only" data-testid="save-problem">
+                {problem}
+              </p>
               <p className="mb-6 text-ground-800">{step === 'review' && sent ? 'Your answers are with your installer. You can still fill a gap or correct an answer.' : intros[step]}</p>
               <form method="post" onSubmit={(e) => e.preventDefault()} noValidate>
-                <fieldset disabled={!view.editable} className="min-w-0">
+                {/* Disabled until hydrated, so nothing typed before the script runs is lost. */}
+                <fieldset disabled={!view.editable || !hydrated} className="min-w-0">
                   {step === 'about' && <AboutStep caseId={view.id} />}
+                  {step === 'home' && <HomeStep caseId={view.id} />}
                   {step === 'vehicle' && <VehicleStep caseId={view.id} />}
                   {step === 'supply' && <SupplyStep caseId={view.id} />}
+                  {step === 'fusebox' && <FuseBoxStep caseId={view.id} />}
+                  {step === 'loads' && <LoadsStep />}
                   {step === 'parking' && <ParkingStep caseId={view.id} />}
                   {step === 'charger' && <ChargerStep caseId={view.id} />}
+                  {step === 'chargepoint' && <ChargePointStep caseId={view.id} />}
                 </fieldset>
                 {step === 'review' && (
                   <ReviewStep

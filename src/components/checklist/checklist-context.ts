@@ -5,6 +5,13 @@ import type { FormValues } from './form-values';
 
 export type ChecklistContext = {
   form: UseFormReturn<FormValues>;
+  /** Dotted paths showing a detail from the invitation that the customer has not confirmed. */
+  prefilled?: ReadonlySet<string>;
+  /** Questions answered before this step opened: their help starts folded. */
+  helpRead?: ReadonlySet<string>;
+  /** Confirms these details from the invitation (one step's). */
+  confirmDetails?(paths: string[]): Promise<void>;
+  confirming?: boolean;
   /** Queues a field's new value: `soon` while typing, `now` for a choice or on leaving a field. */
   edit(path: string, value: string, when: 'soon' | 'now'): void;
 };

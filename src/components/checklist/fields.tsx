@@ -2,7 +2,7 @@
 // aria-describedby, and each queueing a save as the customer types or chooses.
 import type { ChangeEvent, FocusEvent, HTMLAttributes, ReactNode } from 'react';
 import { get, useFormState, useWatch } from 'react-hook-form';
-import { StopIcon, WarningIcon } from '../icons';
+import { InfoIcon, StopIcon, WarningIcon } from '../icons';
 import { fieldId, useChecklist } from './checklist-context';
 import { fieldByPath, type Option } from './field-defs';
 
@@ -19,6 +19,40 @@ type Common = {
   /** Text read with the field (e.g. the region found for an MPAN), shown under it. */
   confirmation?: ReactNode;
 };
+
+/** The words on an answer filled in from the invitation, until the customer confirms it. */
+export const PREFILLED_MARK = 'From your installer — please check';
+
+function PrefilledMark({ path }: { path: string }) {
+  const { prefilled } = useChecklist();
+  if (!prefilled?.has(path)) return null;
+  return (
+    <p id={`${fieldId(path)}-prefilled`} className="mb-1.5 inline-flex items-center gap-1.5 rounded-full bg-clay-50 px-2.5 py-0.5 text-sm font-semibold text-clay-700" data-testid={`${fieldId(path)}-prefilled`}>
+      <InfoIcon className="h-4 w-4" /> {PREFILLED_MARK}
+    </p>
+  );
+}
+
+/** A field's short help; folded behind "Help with this question" once the question was answered on an earlier visit. */
+function FieldHelp({ id, path, className, children }: { id: string; path: string; className: string; children: ReactNode }) {
+  const { helpRead } = useChecklist();
+  if (helpRead?.has(path)) {
+    return (
+      <details id={`${id}-help`} className={`${className} group`} data-testid={`${id}-help-folded`}>
+        <summary className="cursor-pointer list-none text-sm font-semibold text-ground-700 [&::-webkit-details-marker]:hidden">
+          <span className="group-open:hidden">Show help with this question</span>
+          <span className="hidden group-open:inline">Hide help</span>
+        </summary>
+        <div className="mt-1">{children}</div>
+      </details>
+    );
+  }
+  return (
+    <div id={`${id}-help`} className={className}>
+      {children}
+    </div>
+  );
+}
 
 function useFieldError(path: string): string | undefined {
   const { form } = useChecklist();
@@ -87,7 +121,9 @@ export function TextField(props: TextFieldProps) {
   const id = fieldId(path);
   const reg = form.register(path);
   const label = props.label ?? fieldByPath[path]?.label ?? path;
-  const describedby = describedBy(id, { help: props.help, error, warning: props.warning, confirmation: props.confirmation });
+  const { prefilled } = useChecklist();
+  const described = describedBy(id, { help: props.help, error, warning: props.warning, confirmation: props.confirmation });
+  const describedby = prefilled?.has(path) ? [`${id}-prefilled`, described].filter(Boolean).join(' ') : described;
 
   const onChange = (e: ChangeEvent<HTMLInputElement | HTMLTextAreaElement>) => {
     void reg.onChange(e);
@@ -108,6 +144,8 @@ export function TextField(props: TextFieldProps) {
     className: `field-input ${size === 'short' ? 'max-w-[14rem]' : ''} ${error ? 'border-blocked focus:border-blocked focus:ring-blocked/20' : ''}`,
     'aria-invalid': error ? true : undefined,
     'aria-describedby': describedby,
+    // Drawn into the server's HTML, so the answer shows before the script runs.
+    defaultValue: String(form.getValues(path) ?? ''),
     placeholder: props.placeholder,
     spellCheck: props.spellCheck,
   };
@@ -117,10 +155,11 @@ export function TextField(props: TextFieldProps) {
       <label htmlFor={id} className="field-label">
         {label}
       </label>
+      <PrefilledMark path={path} />
       {props.help && (
-        <div id={`${id}-help`} className="field-help mb-1.5 mt-0">
+        <FieldHelp id={id} path={path} className="field-help mb-1.5 mt-0">
           {props.help}
-        </div>
+        </FieldHelp>
       )}
       {multiline ? (
         <textarea {...shared} rows={3} />
@@ -158,9 +197,9 @@ export function NumberField(props: NumberFieldProps) {
         {label}
       </label>
       {props.help && (
-        <div id={`${id}-help`} className="field-help mb-1.5 mt-0">
+        <FieldHelp id={id} path={path} className="field-help mb-1.5 mt-0">
           {props.help}
-        </div>
+        </FieldHelp>
       )}
       <div className="flex max-w-[14rem] items-stretch">
         <input
@@ -170,6 +209,7 @@ export function NumberField(props: NumberFieldProps) {
           inputMode={integer ? 'numeric' : 'decimal'}
           autoComplete="off"
           placeholder={props.placeholder}
+          defaultValue={String(form.getValues(path) ?? '')}
           className={`field-input ${def?.unit ? 'rounded-r-none' : ''} ${error ? 'border-blocked' : ''}`}
           aria-invalid={error ? true : undefined}
           aria-describedby={describedby}
@@ -215,6 +255,7 @@ export function ChoiceField(props: ChoiceFieldProps) {
   const options = props.options ?? def?.options ?? [];
   const reg = form.register(path);
   const label = props.label ?? def?.label ?? path;
+  const chosen = String(form.getValues(path) ?? '');
   const grid = columns === 3 ? 'grid-cols-3' : columns === 2 ? 'grid-cols-2' : 'grid-cols-1';
 
   const cards = (
@@ -232,6 +273,7 @@ export function ChoiceField(props: ChoiceFieldProps) {
               id={optionId}
               type="radio"
               value={option.value}
+              defaultChecked={chosen === option.value}
               className="mt-0.5 h-5 w-5 shrink-0 accent-ground-700"
               aria-labelledby={`${optionId}-label`}
               aria-describedby={option.hint ? `${optionId}-hint` : undefined}
@@ -261,9 +303,9 @@ export function ChoiceField(props: ChoiceFieldProps) {
     <fieldset aria-describedby={describedBy(id, { help: props.help, error })} data-testid={id}>
       <legend className="field-label">{label}</legend>
       {props.help && (
-        <div id={`${id}-help`} className="field-help mb-2 mt-0">
+        <FieldHelp id={id} path={path} className="field-help mb-2 mt-0">
           {props.help}
-        </div>
+        </FieldHelp>
       )}
       {props.aside ? (
         <div className="flex items-start gap-3">

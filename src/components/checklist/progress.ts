@@ -1,35 +1,16 @@
 // Where the customer stands: the steps, each step's state, the gaps and how answers read back.
-import {
-  checklistPatchSchema,
-  mergeChecklist,
-  sectionIds,
-  sectionProgress,
-  type Checklist,
-  type SectionId,
-  type SectionProgress,
-} from '../../lib/schemas/checklist';
+import { checklistPatchSchema, mergeChecklist, type Checklist, type SectionId } from '../../lib/schemas/checklist';
+import { checklistSteps, stepOfField, stepProgress, type DataStepId, type StepProgress } from '../../lib/checklist-steps';
 import { checkMpanCore } from '../../lib/validation/mpan';
 import { checkUkPhone } from '../../lib/validation/phone';
-import { fieldByPath, fieldsOf, optionLabel, type FieldDef } from './field-defs';
+import { fieldByPath, fieldDefs, fieldsOf, optionLabel, type FieldDef } from './field-defs';
 import { checkFormValue, editsToPatch, valueAt, type Edits } from './form-values';
 
-export type StepId = SectionId | 'review';
+export type { StepId, StepProgress } from '../../lib/checklist-steps';
+export { stepFromHash, stepHash, resumeStep, stepOfField } from '../../lib/checklist-steps';
 
-/** The six steps in order. @example steps[5] // { id: 'review', title: 'Check and send' } */
-export const steps: { id: StepId; title: string }[] = [
-  ...sectionIds.map(([id, title]) => ({ id: id as StepId, title: title as string })),
-  { id: 'review', title: 'Check and send' },
-];
-
-/** A step id from the URL hash ("#step=supply"), or null. */
-export function stepFromHash(hash: string): StepId | null {
-  const id = new URLSearchParams(hash.replace(/^#/, '')).get('step');
-  return steps.some((s) => s.id === id) ? (id as StepId) : null;
-}
-
-export function stepHash(id: StepId): string {
-  return `#step=${id}`;
-}
+/** The seven steps in order. @example steps[6] // { id: 'review', title: 'Check and send' } */
+export const steps = checklistSteps;
 
 /**
  * The saved checklist with the customer's valid unsaved edits laid over it, so progress and the
@@ -43,22 +24,21 @@ export function localChecklist(saved: Checklist, edits: Edits): Checklist {
 
 export type StepState = 'complete' | 'gaps' | 'not-started';
 
-/** Complete, started with gaps, or not started, for one section. */
-export function sectionState(progress: SectionProgress, checklist: Checklist): StepState {
+/** Complete, started with gaps, or not started, for one step. Details to confirm count as started. */
+export function stepState(progress: StepProgress): StepState {
   if (progress.complete) return 'complete';
-  const section = checklist[progress.id] as Record<string, unknown> | undefined;
-  return section && Object.keys(section).length > 0 ? 'gaps' : 'not-started';
+  return progress.started || progress.toConfirm.length > 0 ? 'gaps' : 'not-started';
 }
 
-/** Progress for every section of a checklist. */
-export function progressOf(checklist: Checklist): SectionProgress[] {
-  return sectionProgress(checklist);
+/** Progress for every data step of a checklist; `prefilled` are the unconfirmed details from the invitation. */
+export function progressOf(checklist: Checklist, prefilled: readonly string[] = []): StepProgress[] {
+  return stepProgress(checklist, prefilled);
 }
 
-/** A missing field's words: its label and what it holds up. */
-export function gapWords(section: SectionId, missing: string): { label: string; blocks: string } {
-  const def = fieldByPath[`${section}.${missing}`];
-  return { label: def?.label ?? missing, blocks: def?.blocks ?? '' };
+/** A missing field's words, from its dotted path: its label and what it holds up. */
+export function gapWords(path: string): { label: string; blocks: string } {
+  const def = fieldByPath[path];
+  return { label: def?.label ?? path, blocks: def?.blocks ?? '' };
 }
 
 /** Whether a field belongs in the summary at all, given the other answers. */
@@ -116,5 +96,12 @@ export function displayValue(def: FieldDef, checklist: Checklist): string | null
 export function summaryRows(section: SectionId, checklist: Checklist): { def: FieldDef; value: string | null }[] {
   return fieldsOf(section)
     .filter((def) => isRelevant(def, checklist))
+    .map((def) => ({ def, value: displayValue(def, checklist) }));
+}
+
+/** The summary rows of one checklist step (a step may show fields of another section). */
+export function stepSummaryRows(step: DataStepId, checklist: Checklist): { def: FieldDef; value: string | null }[] {
+  return fieldDefs
+    .filter((def) => stepOfField(def.path) === step && isRelevant(def, checklist))
     .map((def) => ({ def, value: displayValue(def, checklist) }));
 }

@@ -1,11 +1,11 @@
-// Step 5, Charge point and cable route: where it goes, how the cable gets there, which kind.
+// Steps 7 and 8, Charge point and cable route (where it goes, how the cable gets there) and
+// Which charge point (tethered or socketed, power, reach).
 import { StepEvidence } from './step-evidence';
 import { ChoiceField, NumberField, TextField, useFieldValue } from './fields';
 import { MoreHelp, Note } from './notes';
 
 export function ChargerStep({ caseId }: { caseId: string }) {
   const softGround = useFieldValue('charger.softGround');
-  const preference = useFieldValue('charger.preference');
   return (
     <div className="space-y-6">
       <TextField
@@ -32,6 +32,16 @@ export function ChargerStep({ caseId }: { caseId: string }) {
         </MoreHelp>
       </ChoiceField>
       {softGround === 'yes' && <NumberField path="charger.softGroundMetres" placeholder="e.g. 3" />}
+      <StepEvidence caseId={caseId} kinds={['charger_location_photo']} heading="Photo of the spot" />
+    </div>
+  );
+}
+
+/** Which charge point: tethered or socketed, its cable, its power, and whether the cable reaches. */
+export function ChargePointStep({ caseId }: { caseId: string }) {
+  const preference = useFieldValue('charger.preference');
+  return (
+    <div className="space-y-6">
       <ChoiceField path="charger.preference">
         <MoreHelp summary="Which should I choose?">
           <p>
@@ -65,7 +75,6 @@ export function ChargerStep({ caseId }: { caseId: string }) {
           under BS 7671 (the UK wiring regulations), the IET Code of Practice for EV charging, and local building and planning rules.
         </p>
       </Note>
-      <StepEvidence caseId={caseId} kinds={['charger_location_photo']} heading="Photo of the spot" />
     </div>
   );
 }

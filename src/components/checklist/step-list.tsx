@@ -1,25 +1,33 @@
 // The list of steps: compact on a phone ("Step 2 of 6", opens on demand), a sidebar on a
 // desktop. Each step says in words whether it is complete, has gaps or is not started.
 import { useState } from 'react';
-import type { Checklist, SectionProgress } from '../../lib/schemas/checklist';
+import type { StepProgress } from '../../lib/checklist-steps';
 import { CheckIcon, ChevronDownIcon, ChevronUpIcon, CircleIcon, SendIcon, WarningIcon } from '../icons';
-import { sectionState, stepHash, steps, type StepId, type StepState } from './progress';
+import { stepHash, stepState, steps, type StepId, type StepState } from './progress';
 
-type Props = { current: StepId; progress: SectionProgress[]; checklist: Checklist; sent: boolean };
+type Props = { current: StepId; progress: StepProgress[]; sent: boolean };
 
 type Row = { id: StepId; title: string; state: StepState | 'review'; word: string };
 
-function rows({ progress, checklist, sent }: Props): Row[] {
+function rows({ progress, sent }: Props): Row[] {
   const allComplete = progress.every((p) => p.complete);
   return steps.map(({ id, title }) => {
     if (id === 'review') {
       return { id, title, state: 'review', word: sent ? 'Sent' : allComplete ? 'Ready to send' : 'Not sent yet' };
     }
     const p = progress.find((s) => s.id === id)!;
-    const state = sectionState(p, checklist);
-    const word = state === 'complete' ? 'Complete' : state === 'gaps' ? `${p.missing.length} to answer` : 'Not started';
-    return { id, title, state, word };
+    const state = stepState(p);
+    return { id, title, state, word: stepWord(p, state) };
   });
+}
+
+/** "Complete", "3 to answer", "2 to answer, 5 to check" (details from the installer to confirm) or "Not started". */
+export function stepWord(p: StepProgress, state: StepState): string {
+  if (state === 'complete') return 'Complete';
+  if (state === 'not-started') return 'Not started';
+  const answer = p.missing.length - p.toConfirm.length;
+  const parts = [answer > 0 ? `${answer} to answer` : null, p.toConfirm.length > 0 ? `${p.toConfirm.length} to check` : null];
+  return parts.filter(Boolean).join(', ');
 }
 
 function StateIcon({ state }: { state: Row['state'] }) {
@@ -64,7 +72,7 @@ export function StepList(props: Props) {
             <div className="h-full rounded-full bg-clear" style={{ width: `${(done / (steps.length - 1)) * 100}%` }} />
           </div>
           <p className="shrink-0 text-sm text-ground-700">
-            {done} of {steps.length - 1} sections complete
+            {done} of {steps.length - 1} steps complete
           </p>
         </div>
       </div>

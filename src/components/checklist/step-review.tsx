@@ -1,12 +1,13 @@
 // Step 6, Check and send: every answer on one page, the gaps and what each holds up, and the
 // Send button (with a confirmation that lists the gaps, when there are any).
 import { useEffect, useRef, useState } from 'react';
-import type { Checklist, SectionId, SectionProgress } from '../../lib/schemas/checklist';
+import type { Checklist } from '../../lib/schemas/checklist';
+import type { StepId, StepProgress } from '../../lib/checklist-steps';
 import { CheckIcon, PencilIcon, SendIcon, SpinnerIcon, StopIcon, WarningIcon } from '../icons';
 import { loadCase, submitCase, type CaseView, type Gap } from './api-client';
 import { fieldId } from './checklist-context';
 import { fieldByPath } from './field-defs';
-import { gapWords, stepHash, summaryRows } from './progress';
+import { gapWords, stepHash, stepOfField, stepSummaryRows, steps } from './progress';
 import { Note } from './notes';
 import CustomerReadiness from '../readiness/customer-readiness';
 
@@ -14,7 +15,7 @@ type Props = {
   caseId: string;
   view: CaseView;
   checklist: Checklist;
-  progress: SectionProgress[];
+  progress: StepProgress[];
   /** Unsaved answers that can't be saved as they stand, with why. */
   blocked: Record<string, string>;
   /** Saves everything queued; false if something could not be saved. */
@@ -29,7 +30,18 @@ export function isSent(view: CaseView): boolean {
   return view.stage !== 'invited' && view.stage !== 'filling_in';
 }
 
-function EditLink({ section, title }: { section: SectionId; title: string }) {
+/** Gaps grouped by the step that asks for them, with dotted paths. */
+type StepGap = { step: StepId; title: string; paths: string[] };
+
+// The server names gaps by data section; the customer meets them by step.
+function toStepGaps(gaps: Gap[]): StepGap[] {
+  const paths = gaps.flatMap((g) => g.missing.map((field) => `${g.section}.${field}`));
+  return steps
+    .map(({ id, title }) => ({ step: id, title, paths: paths.filter((p) => stepOfField(p) === id) }))
+    .filter((g) => g.paths.length > 0);
+}
+
+function EditLink({ section, title }: { section: StepId; title: string }) {
   return (
     <a href={stepHash(section)} className="btn-secondary shrink-0 px-3 py-1.5">
       <PencilIcon className="h-4 w-4" />
@@ -38,20 +50,20 @@ function EditLink({ section, title }: { section: SectionId; title: string }) {
   );
 }
 
-function GapList({ gaps, withLinks }: { gaps: Gap[]; withLinks: boolean }) {
+function GapList({ gaps, withLinks }: { gaps: StepGap[]; withLinks: boolean }) {
   return (
     <ul className="space-y-4">
       {gaps.map((gap) => (
-        <li key={gap.section}>
+        <li key={gap.step}>
           <div className="flex items-center justify-between gap-3">
             <p className="font-bold text-ground-900">{gap.title}</p>
-            {withLinks && <EditLink section={gap.section} title={gap.title} />}
+            {withLinks && <EditLink section={gap.step} title={gap.title} />}
           </div>
           <ul className="mt-1 space-y-1.5">
-            {gap.missing.map((field) => {
-              const words = gapWords(gap.section, field);
+            {gap.paths.map((path) => {
+              const words = gapWords(path);
               return (
-                <li key={field} className="flex items-start gap-2">
+                <li key={path} className="flex items-start gap-2">
                   <WarningIcon className="mt-0.5 h-4 w-4 text-attention" />
                   <span>
                     <span className="font-semibold">{words.label}</span>
@@ -92,9 +104,9 @@ function SentConfirmation({ view }: { view: CaseView }) {
 export function ReviewStep({ caseId, view, checklist, progress, blocked, saveAll, onSent }: Props) {
   const [busy, setBusy] = useState(false);
   const [problem, setProblem] = useState<string | null>(null);
-  const [dialogGaps, setDialogGaps] = useState<Gap[] | null>(null);
+  const [dialogGaps, setDialogGaps] = useState<StepGap[] | null>(null);
   const dialog = useRef<HTMLDialogElement>(null);
-  const gaps: Gap[] = progress.filter((p) => !p.complete).map((p) => ({ section: p.id, title: p.title, missing: p.missing }));
+  const gaps: StepGap[] = progress.filter((p) => !p.complete).map((p) => ({ step: p.id, title: p.title, paths: p.missing }));
   const blockedPaths = Object.keys(blocked);
   const sent = isSent(view);
 
@@ -119,7 +131,7 @@ export function ReviewStep({ caseId, view, checklist, progress, blocked, saveAll
       setDialogGaps(null);
       onSent(result.view);
     } else if (result.kind === 'gaps') {
-      setDialogGaps(result.gaps);
+      setDialogGaps(toStepGaps(result.gaps));
     } else if (result.kind === 'already-sent') {
       // Sent already (another tab, or a reply lost on the way): show the case as it now stands.
       setDialogGaps(null);
@@ -148,7 +160,7 @@ export function ReviewStep({ caseId, view, checklist, progress, blocked, saveAll
           <ul className="mt-2 space-y-1">
             {blockedPaths.map((path) => (
               <li key={path}>
-                <a href={stepHash(fieldByPath[path]!.section)} onClick={() => setTimeout(() => document.getElementById(fieldId(path))?.focus(), 50)}>
+                <a href={stepHash(stepOfField(path))} onClick={() => setTimeout(() => document.getElementById(fieldId(path))?.focus(), 50)}>
                   {fieldByPath[path]?.label}
                 </a>
                 : {blocked[path]}
@@ -162,7 +174,7 @@ export function ReviewStep({ caseId, view, checklist, progress, blocked, saveAll
         <section aria-labelledby="gaps-heading" className="rounded-lg border border-attention/40 bg-attention-soft/60 p-4">
           <h3 id="gaps-heading" className="flex items-center gap-2 text-lg font-bold text-ground-900">
             <WarningIcon className="h-5 w-5 text-attention" />
-            Still to answer ({gaps.reduce((n, g) => n + g.missing.length, 0)})
+            Still to answer ({gaps.reduce((n, g) => n + g.paths.length, 0)})
           </h3>
           <p className="mb-3 mt-1 text-ground-800">
             {sent
@@ -182,7 +194,7 @@ export function ReviewStep({ caseId, view, checklist, progress, blocked, saveAll
       <CustomerReadiness caseId={caseId} version={view.version} />
 
       {progress.map((section) => {
-        const rows = summaryRows(section.id, checklist);
+        const rows = stepSummaryRows(section.id, checklist);
         return (
           <section key={section.id} aria-labelledby={`summary-${section.id}`} className="rounded-lg border border-ground-100" data-testid={`summary-${section.id}`}>
             <div className="flex items-center justify-between gap-3 border-b border-ground-100 bg-ground-50 px-4 py-2">

@@ -8,7 +8,6 @@ import { normaliseVin } from '../../lib/validation/vin';
 import { useChecklist } from './checklist-context';
 import { ChoiceField, TextField, useFieldValue } from './fields';
 import { MoreHelp } from './notes';
-import { ChargePortPicture } from './charge-port-picture';
 import { useVehicleLookup, VehicleLookupNote } from './vehicle-lookup';
 
 /** A valid mark written the usual way ("AB12 CDE"); anything else left as typed. */
@@ -31,12 +30,18 @@ function vehicleWarning(field: 'registration' | 'vin', value: string): string | 
   return fieldWarnings({ vehicle: { [field]: field === 'vin' ? normaliseVin(value) : value } })[`vehicle.${field}`] ?? null;
 }
 
+/** True while the vehicle records are about to be, or being, asked about this plate. */
+function awaitingRecords(lookup: ReturnType<typeof useVehicleLookup>, registration: string): boolean {
+  if (lookup) return lookup.outcome.kind === 'pending';
+  const checked = checkRegistration(registration);
+  return checked.ok && checked.format !== 'unknown';
+}
+
 export function VehicleStep({ caseId }: { caseId: string }) {
   const condition = useFieldValue('vehicle.condition');
   const { form } = useChecklist();
   const registration = useFieldValue('vehicle.registration');
   const vin = useFieldValue('vehicle.vin');
-  const chargePort = useFieldValue('vehicle.chargePort');
   const delivery = dateInWords(useFieldValue('vehicle.deliveryDate'));
   // Shown as "not registered" when only a VIN is saved; the choice itself is not stored.
   const [notRegistered, setNotRegistered] = useState(() => {
@@ -77,8 +82,9 @@ export function VehicleStep({ caseId }: { caseId: string }) {
             spellCheck={false}
             size="short"
             normalise={tidyRegistration}
-            // A plate the vehicle records hold has been issued, whatever its age identifier suggests.
-            warning={lookup?.outcome.kind === 'found' ? null : vehicleWarning('registration', registration)}
+            // A plate the vehicle records hold has been issued, whatever its age identifier suggests,
+            // so the warning waits for the look-up (it starts half a second after typing stops).
+            warning={awaitingRecords(lookup, registration) || lookup?.outcome.kind === 'found' ? null : vehicleWarning('registration', registration)}
             help="The number plate, for example AB12 CDE."
             confirmation={lookup && lookup.outcome.kind !== 'off' ? <VehicleLookupNote state={lookup} /> : null}
           />
@@ -105,11 +111,6 @@ export function VehicleStep({ caseId }: { caseId: string }) {
           </p>
         </MoreHelp>
       </ChoiceField>
-      <ChoiceField
-        path="vehicle.chargePort"
-        help="Left and right as you sit in the driver’s seat. This decides whether a cable reaches the car where you park."
-        aside={<ChargePortPicture position={chargePort} />}
-      />
       {condition === 'new' && <StepEvidence caseId={caseId} kinds={['order_agreement']} heading="Order agreement" />}
     </div>
   );

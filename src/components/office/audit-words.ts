@@ -51,6 +51,8 @@ export function describeAudit(item: AuditItem, uploadKindById: Record<string, Up
       if (changes.length === 1) return { text: `changed ${changes[0]}`, details: [] };
       return { text: `changed ${countOf(changes.length, 'answer')}`, details: changes };
     }
+    case 'checklist.confirmed':
+      return { text: 'confirmed the details the office filled in from the invitation', details: [] };
     case 'stage.changed': {
       const details: string[] = [];
       if (after.overrideReason) details.push(`Override of red checks: “${valueWords(after.overrideReason, 1000)}”`);

@@ -92,7 +92,22 @@ function Section({ id, title, checklist, progress, warnings, note }: { id: Secti
   );
 }
 
-export function CaseAnswers({ checklist, progress, warnings, vehicleLookup }: Props) {
+/**
+ * The answer warnings the office should see. A plate the vehicle records hold has been issued,
+ * whatever its age identifier suggests, so its registration warning is dropped (as on the
+ * customer's vehicle step).
+ *
+ * @example officeWarnings({ 'vehicle.registration': '…not in use yet…' }, { vehicle: { registration: 'GW29 EVA' } }, { registration: 'GW29 EVA' }) // {}
+ */
+export function officeWarnings(warnings: Record<string, string>, checklist: Checklist, lookup: { registration: string } | null | undefined): Record<string, string> {
+  const plate = checklist.vehicle?.registration;
+  if (!lookup || !plate || lookup.registration !== plate || !warnings['vehicle.registration']) return warnings;
+  const { 'vehicle.registration': _onRecord, ...rest } = warnings;
+  return rest;
+}
+
+export function CaseAnswers({ checklist, progress, warnings: all, vehicleLookup }: Props) {
+  const warnings = officeWarnings(all, checklist, vehicleLookup);
   return (
     <section aria-labelledby="answers-heading" className="card" id="answers">
       <h2 id="answers-heading" className="text-lg font-bold text-ground-900">Answers</h2>

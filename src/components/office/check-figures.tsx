@@ -163,7 +163,7 @@ function CableRun({ f }: { f: Figures }) {
       )}
       {ref70?.sizes && ref70.sizes.length > 0 && (
         <details className="mt-2 text-sm">
-          <summary className="cursor-pointer text-ground-700">70 °C thermoplastic drop comparison (from memory, not used to recommend)</summary>
+          <summary className="cursor-pointer text-ground-700">70 °C thermoplastic drop comparison (not used to recommend; confirm against the printed table)</summary>
           <MiniTable
             caption={ref70.table ?? 'Table 4D4B'}
             head={['Size', 'mV/A/m', 'Drop', 'Drop %']}
@@ -221,7 +221,7 @@ function NetworkOperator({ f }: { f: Figures }) {
           ['Route', networkRouteWord(f.route)],
           ['Settled', f.settled ? 'Yes' : 'Not yet — answers missing'],
           ['Assessed maximum demand', `${amps(f.assessedDemandAmps)}${f.supplyPhases === 3 ? ' per phase' : ''}`],
-          ['Notify-only limit', `${amps(f.demandLimitAmps)}${f.supplyPhases === 3 ? ' per phase' : ''}`],
+          ['Connect & Notify limit', `${amps(f.demandLimitAmps)}${f.supplyPhases === 3 ? ' per phase' : ''}`],
           ['Main fuse (cut-out)', f.fuseAmps === null ? 'Not known' : amps(f.fuseAmps)],
           ['Lead time allowed', countOf(num(f.leadTimeDays) ?? 0, 'day')],
           ['Notify within', num(f.notifyWithinDays) === null ? '—' : `${countOf(num(f.notifyWithinDays)!, 'day')} of connection`],

@@ -11,7 +11,7 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import type { QueueItem, QueueSortKey } from '../../lib/schemas/queue';
-import { ChevronDownIcon, ChevronLeftIcon, ChevronRightIcon, ChevronUpIcon, InfoIcon, SendIcon, SpinnerIcon, StopIcon } from '../icons';
+import { CameraIcon, ChevronDownIcon, ChevronLeftIcon, ChevronRightIcon, ChevronUpIcon, InfoIcon, SendIcon, SpinnerIcon, StopIcon } from '../icons';
 import { apiCall, type ApiError } from './api';
 import { daysSince, daysUntil, formatDay, plural, relativeDays } from './format';
 import { LightBadge } from '../readiness/light-badge';
@@ -60,6 +60,12 @@ function CustomerCell({ r }: { r: QueueItem }) {
       {r.changedSinceReadyAt && (
         <div className="mt-1 inline-block rounded bg-clay-100 px-1.5 py-0.5 text-xs font-semibold text-clay-800" data-testid="changed-since-ready">
           Changed since ready
+        </div>
+      )}
+      {r.flaggedPhotos > 0 && (
+        <div className="mt-1 inline-flex items-center gap-1 rounded bg-attention-soft px-1.5 py-0.5 text-xs font-semibold text-attention" data-testid="photos-flagged">
+          <CameraIcon className="h-3.5 w-3.5" />
+          {r.flaggedPhotos === 1 ? '1 photo flagged' : `${r.flaggedPhotos} photos flagged`}
         </div>
       )}
     </div>

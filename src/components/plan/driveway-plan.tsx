@@ -4,7 +4,7 @@
 import { useId, useMemo, useState } from 'react';
 import { InfoIcon } from '../icons';
 import { cableForReach } from '../../lib/readiness/checks/cable-reach';
-import { reachVerdict, type DrivewayPlan as PlanValue } from '../../lib/readiness/plan';
+import { otherBaysOccupied, reachVerdict, type DrivewayPlan as PlanValue } from '../../lib/readiness/plan';
 import { defaultReadinessSettings, type ReadinessSettings } from '../../lib/readiness/settings';
 import type { ChargePort, ChargerPreference, ParkingHabit, ParkingWay } from '../../lib/readiness/types';
 import { PlanControls } from './plan-controls';
@@ -26,6 +26,8 @@ export type DrivewayPlanProps = {
   tetherMetres?: number | null;
   preference?: ChargerPreference | null;
   habit?: ParkingHabit | null;
+  /** How many cars the household parks (the parking step's answer): one car leaves the other bays empty. */
+  cars?: number | null;
   /** The office's readiness settings; defaults when not given. */
   settings?: Partial<PlanSettings>;
   readOnly?: boolean;
@@ -38,7 +40,7 @@ export type DrivewayPlanProps = {
  *
  * @example <DrivewayPlan value={plan} onChange={setPlan} chargePort="front-left" preference="tethered" tetherMetres={5} habit="varies" />
  */
-export function DrivewayPlan({ value, onChange, chargePort = null, tetherMetres = null, preference = null, habit = null, settings, readOnly, layout = 'split' }: DrivewayPlanProps) {
+export function DrivewayPlan({ value, onChange, chargePort = null, tetherMetres = null, preference = null, habit = null, cars = null, settings, readOnly, layout = 'split' }: DrivewayPlanProps) {
   const titleId = useId();
   const starting = useMemo(defaultPlan, []);
   const plan = value ?? starting;
@@ -50,7 +52,12 @@ export function DrivewayPlan({ value, onChange, chargePort = null, tetherMetres 
   const cable = cableForReach({ preference, tetherMetres }, measured);
   const port = plan.chargePort ?? chargePort ?? null;
   const verdicts = port
-    ? reachVerdict(plan, cable.metres, 'varies', { port, slackMetres: measured.cableSlackMetres, portInsetMetres: measured.portInsetMetres })
+    ? reachVerdict(plan, cable.metres, 'varies', {
+        port,
+        slackMetres: measured.cableSlackMetres,
+        portInsetMetres: measured.portInsetMetres,
+        otherBaysOccupied: otherBaysOccupied(cars),
+      })
     : [];
   const carBays = carBaysOf(view);
   const change = (next: PlanView) => onChange(viewToPlan(next));

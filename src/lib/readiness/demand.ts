@@ -8,7 +8,9 @@ import { COMMON_PRACTICE, type ReadinessSettings } from './settings';
 import type { ChecklistAnswers, LoadAnswers, SiteMeasures } from './types';
 import { formatNumber, kwToAmps, positiveOrNull, roundTo } from './units';
 
-export const TABLE_A2 = "IET On-Site Guide Appendix A, Table A2 (as reproduced in The Electrician's Guide, Table 6.2; the OSG's own wording not seen)";
+// The Table A2 rules were read as reproduced in The Electrician's Guide (EPA Press, Table 6.2);
+// the On-Site Guide's own wording was not seen. Staff read the published table it reproduces.
+export const TABLE_A2 = 'IET On-Site Guide Appendix A, Table A2';
 export const REG_722_311 = 'BS 7671:2018+A2:2022 Regulation 722.311';
 
 /** The load questions; loads count as declared only when every one has an answer. */

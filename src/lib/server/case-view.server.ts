@@ -39,6 +39,8 @@ export function toCaseView(row: CaseRow, role: Role) {
     version: row.version,
     checklist,
     progress: sectionProgress(checklist),
+    // Answers from the invitation the customer has not confirmed yet (dotted paths).
+    prefilled: (row.prefilled ?? []) as string[],
     warnings: fieldWarnings(checklist),
     region: mpan?.ok ? mpan.region : null,
     editable: editableStages.includes(row.stage),

@@ -56,7 +56,9 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
       throw new HttpError(422, 'invalid', 'Some answers do not fit together. Nothing was saved.', conflicts);
     }
     const changes = diff(before, after);
-    if (Object.keys(changes).length === 0) return toCaseView(current, user.role);
+    // A detail from the invitation that the customer answers themselves is theirs from now on.
+    const prefilled = remainingPrefilled(current.prefilled, patch);
+    if (Object.keys(changes).length === 0 && prefilled.length === current.prefilled.length) return toCaseView(current, user.role);
     const about = after.about ?? {};
     const isCustomer = user.role === 'customer';
     // Readiness of the new answers, stored by the same UPDATE: fewer round trips while the row is locked.
@@ -65,13 +67,13 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
       .update(cases)
       .set({
         checklist: after,
+        prefilled,
         version: sql`${cases.version} + 1`,
         updatedAt: new Date(),
         ...readinessColumns(readiness),
-        // The office's queue reads the address from the case's own columns.
-        ...('about' in patch
-          ? { addressLine1: about.addressLine1 ?? null, addressLine2: about.addressLine2 ?? null, town: about.town ?? null, postcode: about.postcode ?? null }
-          : {}),
+        // The office's queue reads the address from the case's own columns: copy the address
+        // fields this save sends (a value, or null to clear), and keep the others as they are.
+        ...addressColumns(patch, about),
         ...(isCustomer ? { lastCustomerActivityAt: new Date() } : {}),
         ...(current.stage === 'invited' && isCustomer ? { stage: 'filling_in' as const } : {}),
       })
@@ -101,6 +103,56 @@ export async function saveChecklist(user: SessionUser, row: CaseRow, patch: Chec
   });
   if (changedAfterReady !== null) await tellOfficeOfChange(row, user, { what: 'answers', detail: changedAfterReady }, (await firm()).email);
   return view;
+}
+
+const ADDRESS_FIELDS = ['addressLine1', 'addressLine2', 'town', 'postcode'] as const;
+
+function addressColumns(patch: ChecklistPatch, about: NonNullable<Checklist['about']>) {
+  const sent = patch.about ?? {};
+  return Object.fromEntries(ADDRESS_FIELDS.filter((f) => f in sent && sent[f] !== undefined).map((f) => [f, about[f] ?? null]));
+}
+
+/** The invitation's details still unconfirmed once this patch's own answers are taken out. */
+function remainingPrefilled(prefilled: string[], patch: ChecklistPatch): string[] {
+  const sent = patch.about ?? {};
+  return prefilled.filter((path) => {
+    const [section, field] = path.split('.');
+    return !(section === 'about' && field! in sent && (sent as Record<string, unknown>)[field!] !== undefined);
+  });
+}
+
+/**
+ * The customer confirms details the installer filled in from the invitation (one step's): they
+ * count as answered from now on. Nothing else changes; confirming again changes nothing.
+ * @example await confirmDetails(user, row, ['about.fullName']) // the case view without about.fullName in prefilled
+ */
+export async function confirmDetails(user: SessionUser, row: CaseRow, paths: readonly string[]) {
+  if (!editableStages.includes(row.stage)) {
+    throw new HttpError(409, 'conflict', 'This case can no longer be changed. Please contact your installer.', undefined, { reason: 'locked' });
+  }
+  return transaction(async (tx) => {
+    const [current] = await tx.select().from(cases).where(eq(cases.id, row.id)).for('update');
+    if (!current) throw new HttpError(404, 'not_found', 'That case was not found.');
+    const remaining = current.prefilled.filter((path) => !paths.includes(path));
+    if (remaining.length === current.prefilled.length) return toCaseView(current, user.role);
+    const [saved] = await tx
+      .update(cases)
+      .set({
+        prefilled: remaining,
+        detailsConfirmedAt: new Date(),
+        version: sql`${cases.version} + 1`,
+        updatedAt: new Date(),
+        lastCustomerActivityAt: new Date(),
+        ...(current.stage === 'invited' ? { stage: 'filling_in' as const } : {}),
+      })
+      .where(eq(cases.id, row.id))
+      .returning();
+    await audit(tx, { caseId: row.id, actorId: user.id, action: 'checklist.confirmed', entity: 'case', entityId: row.id, before: { prefilled: current.prefilled }, after: { prefilled: remaining } });
+    if (current.stage !== saved!.stage) {
+      await audit(tx, { caseId: row.id, actorId: user.id, action: 'stage.changed', entity: 'case', entityId: row.id, before: { stage: current.stage }, after: { stage: saved!.stage } });
+    }
+    return toCaseView(saved!, user.role);
+  });
 }
 
 /** "Main fuse (cut-out), as read, Electric shower" — the office's labels for changed paths. */

@@ -59,6 +59,8 @@ export async function inviteCustomer(admin: SessionUser, input: Invite) {
         town: a.town,
         postcode: a.postcode,
         checklist,
+        // Shown to the customer as "from your installer — please check" until confirmed.
+        prefilled: Object.keys(checklist.about).map((field) => `about.${field}`),
       })
       .returning();
     await audit(tx, { caseId: row!.id, actorId: admin.id, action: 'case.created', entity: 'case', entityId: row!.id, after: { stage: 'invited', email, note: input.note ?? null } });

@@ -2,9 +2,9 @@
 // pack page and the PDF are made from the same facts and cannot drift apart.
 import { and, eq, inArray, sql } from 'drizzle-orm';
 import { cases, surveyOutcomes, uploads, users, type CaseRow, type UploadRow } from '../../db/schema';
+import { packCautions } from '../cautions';
 import { customerGaps, type CustomerGap } from '../gaps';
 import {
-  readinessCautions,
   readPlan,
   requiredUploadKinds,
   uploadKindStatus,
@@ -167,20 +167,6 @@ export type ReachFigures = {
   problem: string | null;
 };
 
-/** Trade cautions for the surveyor beyond the customer's three, each with its source. */
-const siteCautions = [
-  {
-    text: 'PME and an outdoor charging point: a PME earthing facility is not to be used unless one of the listed measures applies (an installation earth electrode, or a device that disconnects live and protective conductors on a broken PEN). Check the current amendment. The earthing check stays amber until the measure is recorded; open soil only says whether an electrode is practical.',
-    source: 'BS 7671:2018+A2:2022 Regulation 722.411.4.1',
-  },
-  {
-    text: 'Each charging point needs its own 30 mA RCD of at least Type A; Type B, or Type A/F with an RDC-DD to BS IEC 62955, where DC fault current over 6 mA is possible.',
-    source: 'BS 7671:2018+A2:2022 Regulation 722.531.3.101',
-  },
-];
-
-const customerCautionSource = 'Groundwork trade reference, "Cautions to show"';
-
 /**
  * The case if this user may read its pack: the office, or the surveyor it is assigned to.
  * Customers (even for their own case) and other surveyors get undefined, which callers answer
@@ -234,7 +220,7 @@ export async function gatherPack(row: CaseRow): Promise<Pack> {
       checks: checks.filter((c) => c.light !== 'green').map((c) => ({ id: c.id, title: c.title, light: c.light, staffText: c.staffText, actions: c.actions })),
     },
     notes: notes.map((n) => ({ body: n.body, authorName: n.authorName, createdAt: n.createdAt })),
-    cautions: [...readinessCautions.map((text) => ({ text, source: customerCautionSource })), ...siteCautions],
+    cautions: packCautions.map((c) => ({ ...c })),
     outcome,
   };
 }

@@ -1,6 +1,7 @@
 // The survey pack's staff words: figures, bases and states in trade terms, shared by the pack
 // page, the office's case page and the PDF so all three say the same. Pure and client-safe.
 import { countOf } from '@/lib/grammar';
+import { networkRouteNames as routeNames } from '@/lib/readiness/network-route';
 import { uploadKindInfo, type UploadKind } from '@/lib/schemas/uploads';
 
 /** The word for each light, as staff read it (always shown beside the colour and an icon). */
@@ -31,21 +32,18 @@ export const kindTitle = (kind: UploadKind) => uploadKindInfo[kind]?.title ?? ki
 export const uploadStateWords = { accepted: 'Accepted', waiting: 'Waiting for review', rejected: 'Rejected', missing: 'Missing' } as const;
 
 /** The network operator's two routes, named as the trade body names its process (staff only). */
-export const networkRouteNames: Record<string, string> = {
-  'notify-after': 'Connect and notify',
-  'apply-before': 'Apply to connect',
-};
+export { networkRouteNames } from '../readiness/network-route';
 
 /** Each route with what it asks of the installer, for the pack and the PDF. */
 export const networkRouteWords: Record<string, string> = {
-  'notify-after': `${networkRouteNames['notify-after']}: install, then notify the network operator within the notice period`,
-  'apply-before': `${networkRouteNames['apply-before']}: apply to the network operator before connecting`,
+  'notify-after': `${routeNames['notify-after']}: install, then notify the network operator within the notice period`,
+  'apply-before': `${routeNames['apply-before']}: apply to the network operator before connecting`,
 };
 
 /** A network route in words, never its id. */
 export function networkRouteWord(route: unknown, long = false): string {
   const key = String(route ?? '');
-  return (long ? networkRouteWords[key] : networkRouteNames[key]) ?? 'Not settled';
+  return (long ? networkRouteWords[key] : (routeNames as Record<string, string>)[key]) ?? 'Not settled';
 }
 
 /**

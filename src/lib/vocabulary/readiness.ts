@@ -3,20 +3,23 @@
 // written for the firm ("The installer to plan…") and never reach a customer.
 import type { CheckId, Light } from '@/lib/readiness/types';
 
-/** Where a customer can act: a checklist step, or the photos and documents page. */
-export type CustomerActionPlace = 'about' | 'vehicle' | 'supply' | 'parking' | 'charger' | 'photos';
+/** Where a customer can act: a checklist step (its `#step=` id), or the photos and documents page. */
+export type CustomerActionPlace = 'about' | 'vehicle' | 'supply' | 'fusebox' | 'loads' | 'parking' | 'charger' | 'photos';
 
 export type CustomerAction = { place: CustomerActionPlace; text: string };
 
-const supply = { place: 'supply', text: 'Look again at your answers in “Your supply”.' } as const;
+// The step titles are the checklist's own (src/lib/checklist-steps.ts).
+const meter = { place: 'supply', text: 'Look again at your answers in “Your meter and fuse”.' } as const;
+const loads = { place: 'loads', text: 'Look again at your answers in “Big electric loads”.' } as const;
+const consumerUnit = { place: 'fusebox', text: 'Look again at your answers in “Your consumer unit and earthing”.' } as const;
 const charger = { place: 'charger', text: 'Look again at your answers in “Charge point and cable route”.' } as const;
 const photos = { place: 'photos', text: 'Add or replace the photos and documents asked for.' } as const;
 
 const byCheck: Record<CheckId, CustomerAction[]> = {
-  'supply-identity': [{ place: 'supply', text: 'Check the MPAN (your 13-digit supply number) in “Your supply” against an electricity bill.' }],
-  'supply-headroom': [supply, { place: 'photos', text: 'Send a clear photo of the cut-out, if you haven’t yet.' }],
-  'network-operator': [supply],
-  earthing: [supply, charger],
+  'supply-identity': [{ place: 'supply', text: 'Check the MPAN (your 13-digit supply number) in “Your meter and fuse” against an electricity bill.' }],
+  'supply-headroom': [meter, loads, { place: 'photos', text: 'Send a clear photo of the cut-out, if you haven’t yet.' }],
+  'network-operator': [meter],
+  earthing: [consumerUnit, charger],
   'cable-run': [charger],
   'cable-reach': [{ place: 'charger', text: 'Check the driveway plan and the charging socket in “Charge point and cable route”.' }],
   parking: [{ place: 'parking', text: 'Look again at your answers in “Parking”.' }],

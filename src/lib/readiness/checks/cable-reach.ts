@@ -1,7 +1,7 @@
 // Cable reach: whether the charging cable reaches the car's charge port in every way the
 // car is parked, measured on the customer's driveway plan.
 import { withArticle } from '../../grammar';
-import { carSize, readPlan, reachVerdict, type ReachVerdict } from '../plan';
+import { carSize, otherBaysOccupied, readPlan, reachVerdict, type ReachVerdict } from '../plan';
 import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
 import type { ChargePort, ChargerAnswers, CheckInput, CheckResult, ParkingHabit } from '../types';
 import { formatNumber, positiveOrNull } from '../units';
@@ -9,7 +9,8 @@ import { optionWords } from '../../vocabulary/fields';
 import { cableSourceWords } from '../../vocabulary/pack';
 import { portLabels, portStaffLabels, wayLabels, wayPhrases } from '../../vocabulary/plan';
 
-const SOURCE = `Geometry of the customer's driveway plan; tethered cable commonly about 5 m (IEC 62196-2 connectors; ${COMMON_PRACTICE}); slack allowance and car sizes: ${COMMON_PRACTICE} (car sizes from memory)`;
+// The car sizes behind the sketch are from memory (see plan.ts); staff read only "common practice".
+const SOURCE = `Geometry of the customer's driveway plan; tethered cable commonly about 5 m (IEC 62196-2 connectors; ${COMMON_PRACTICE}); slack allowance and car sizes: ${COMMON_PRACTICE}`;
 const TITLE = 'Charging cable reaches your car';
 
 export type CableSource = 'tether' | 'tether-assumed' | 'customer-cable-assumed';
@@ -45,12 +46,12 @@ export function checkCableReach({ answers, settings }: CheckInput): CheckResult 
   if (!port) return gapResult('Charge port position not given.', "Tell us where the charging socket is on your car.", cable);
   // Another car in the other bay is an obstacle unless the customer said there is only one car.
   const cars = answers.parking?.cars;
-  const otherBaysOccupied = typeof cars !== 'number' || cars >= 2;
+  const othersParked = otherBaysOccupied(cars);
   const verdicts = reachVerdict(plan, cable.metres, habit, {
     port,
     slackMetres: settings.cableSlackMetres,
     portInsetMetres: settings.portInsetMetres,
-    otherBaysOccupied,
+    otherBaysOccupied: othersParked,
   });
   const allReach = verdicts.every((v) => v.reaches);
   return {
@@ -68,7 +69,7 @@ export function checkCableReach({ answers, settings }: CheckInput): CheckResult 
       car: carSize(plan.car),
       slackMetres: settings.cableSlackMetres,
       bays: plan.bays.length,
-      otherBaysOccupied: plan.bays.length > 1 ? otherBaysOccupied : null,
+      otherBaysOccupied: plan.bays.length > 1 ? othersParked : null,
       verdicts,
     },
     source: SOURCE,

@@ -69,7 +69,7 @@ export interface CableDesign {
 const AIR_AMBIENT: CorrectionFactor = { name: 'Ambient air 30 °C (Ca)', value: 1, basis: 'Table 4B1 at the tabulated 30 °C — assumed' };
 const NOT_GROUPED: CorrectionFactor = { name: 'Single circuit, not grouped (Cg)', value: 1, basis: 'Table 4C1, one circuit — assumed' };
 const GROUND_AMBIENT: CorrectionFactor = { name: 'Ground 20 °C (Ca)', value: 1, basis: 'Table 4B2 at the tabulated 20 °C — assumed' };
-const SOIL: CorrectionFactor = { name: 'Soil thermal resistivity 2.5 K·m/W', value: 1, basis: 'Table 4B3 at the tabulated value — assumed (from memory)' };
+const SOIL: CorrectionFactor = { name: 'Soil thermal resistivity 2.5 K·m/W', value: 1, basis: 'Table 4B3 at the tabulated value — assumed; confirm against the printed table' }; // from memory
 const INSULATION: CorrectionFactor = {
   name: 'Surrounded by thermal insulation over 0.5 m (Ci)',
   value: 0.5,
@@ -207,7 +207,8 @@ export function checkCableRun({ answers, settings }: CheckInput): CheckResult {
       recommendedCsaMm2: recommended,
       longRunThresholdMetres: settings.longRunMetres,
       reference70C: {
-        table: 'BS 7671 Table 4D4B, 70 °C thermoplastic — from memory, not seen in the source; not used to recommend',
+        // Values from memory, not seen in the source (TABLE_4D4B_FROM_MEMORY).
+        table: 'BS 7671 Table 4D4B, 70 °C thermoplastic — comparison only, not used to recommend; confirm against the printed table',
         fromMemory: true,
         sizes: design.basis.phases === 1 ? reference70CRows(design.charger.ampsPerPhase, metres, settings) : [],
       },

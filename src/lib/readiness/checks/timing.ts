@@ -1,7 +1,7 @@
 // Timing: can the survey, the install and any network-operator step fit before the car arrives?
 import { countOf } from '../../grammar';
 import { addDays, isoDayNumber } from '../dates';
-import { decideNetworkRoute, ENA_SOURCE } from '../network-route';
+import { decideNetworkRoute, ENA_SOURCE, networkRouteNames } from '../network-route';
 import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
 import type { CheckInput, CheckResult, Light } from '../types';
 
@@ -98,7 +98,7 @@ function customerText(light: Light, spareDays: number, applyBefore: boolean, pen
 }
 
 function staffText(figures: { daysUntilDelivery: number; totalLeadDays: number; spareDays: number; knownSpareDays: number; earliestInstallDate: string; supplyUpgradeLeadDays: number; deliveryDate: string | null }, settings: ReadinessSettings, networkLeadKnown: boolean): string {
-  const upgrade = figures.supplyUpgradeLeadDays > 0 ? ` + ${figures.supplyUpgradeLeadDays} DNO (apply to connect${networkLeadKnown ? '' : ', possible: answers missing'})` : '';
+  const upgrade = figures.supplyUpgradeLeadDays > 0 ? ` + ${figures.supplyUpgradeLeadDays} DNO (${networkRouteNames['apply-before']}${networkLeadKnown ? '' : ', possible: answers missing'})` : '';
   const known = networkLeadKnown ? '' : ` Without the possible DNO step: spare ${figures.knownSpareDays} days.`;
   return `Delivery ${figures.deliveryDate} in ${figures.daysUntilDelivery} days; lead ${figures.totalLeadDays} days (${settings.surveyLeadDays} survey + ${settings.installLeadDays} install${upgrade}, calendar days); earliest install ${figures.earliestInstallDate}; spare ${figures.spareDays} days (slack ${settings.timingSlackDays}).${known}`;
 }

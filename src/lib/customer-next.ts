@@ -1,0 +1,73 @@
+// Client-safe: what the customer's home page says is done and what is still needed, each thing
+// still needed with the checklist step that takes care of it. Built from the same step progress
+// and required uploads as the checklist, so the two never disagree.
+import type { Checklist } from './schemas/checklist';
+import type { UploadKind } from './schemas/uploads';
+import { customerGapLabel } from './vocabulary/fields';
+import { endSentence, quoted } from './punctuation';
+import { requiredUploadKinds } from './readiness/checks/documents';
+import { uploadKindLabels, uploadKindStatus } from './readiness/upload-status';
+import type { ChecklistAnswers, UploadSummary } from './readiness/types';
+import { stepProgress, type DataStepId } from './checklist-steps';
+
+/** The step whose page holds each upload slot. */
+export const uploadStep: Readonly<Record<Exclude<UploadKind, 'other'>, DataStepId>> = {
+  meter_photo: 'supply',
+  cutout_photo: 'supply',
+  consumer_unit_photo: 'fusebox',
+  landlord_permission: 'home',
+  order_agreement: 'vehicle',
+  parking_evidence: 'parking',
+  charger_location_photo: 'charger',
+};
+
+export type NextThing = { step: DataStepId; stepTitle: string; text: string };
+export type CustomerNext = { done: { step: DataStepId; title: string }[]; needed: NextThing[] };
+
+const sentence = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
+
+/**
+ * Done steps, and each thing still needed in the order the checklist asks for it: answers to
+ * give, details from the installer to check, photos and documents to send (or send again).
+ *
+ * @example customerNext({}, [], []).needed[0] // { step: 'about', stepTitle: 'About you', text: 'Add your name, …' }
+ */
+export function customerNext(checklist: Checklist, prefilled: readonly string[], uploads: readonly UploadSummary[]): CustomerNext {
+  const progress = stepProgress(checklist, prefilled);
+  const needed: NextThing[] = [];
+  const uploadsByStep = new Map<DataStepId, NextThing[]>();
+  for (const kind of requiredUploadKinds(checklist as ChecklistAnswers)) {
+    const status = uploadKindStatus(kind, uploads);
+    if (kind === 'other') continue;
+    const step = uploadStep[kind];
+    const title = progress.find((p) => p.id === step)!.title;
+    let text: string | null = null;
+    if (status.state === 'missing') text = `Send ${withArticle(uploadKindLabels[kind])}.`;
+    if (status.state === 'rejected') text = `Send ${withArticle(uploadKindLabels[kind])} again${status.reason ? ` — your installer said: ${quoted(status.reason)}` : ''}`;
+    if (text) uploadsByStep.set(step, [...(uploadsByStep.get(step) ?? []), { step, stepTitle: title, text: endSentence(text) }]);
+  }
+  for (const p of progress) {
+    const toAnswer = p.missing.filter((path) => !p.toConfirm.includes(path));
+    if (p.toConfirm.length > 0) needed.push({ step: p.id, stepTitle: p.title, text: 'Check the details your installer filled in, and confirm them.' });
+    if (toAnswer.length > 0) {
+      // One phrase covers all the load questions, so say each phrase once.
+      const words = [...new Set(toAnswer.map((path) => customerGapLabel(path)))];
+      needed.push({ step: p.id, stepTitle: p.title, text: `${sentence(`add ${listWords(words)}`)}.` });
+    }
+    needed.push(...(uploadsByStep.get(p.id) ?? []));
+  }
+  const done = progress.filter((p) => p.complete && !(uploadsByStep.get(p.id)?.length)).map((p) => ({ step: p.id, title: p.title }));
+  return { done, needed };
+}
+
+/** "a, b and c". @example listWords(["a", "b", "c"]) // "a, b and c" */
+export function listWords(words: string[]): string {
+  if (words.length <= 1) return words[0] ?? '';
+  return `${words.slice(0, -1).join(', ')} and ${words.at(-1)}`;
+}
+
+/** "a photo of …", "an order agreement …", "your landlord's permission" (no article before "your" or "proof"). */
+function withArticle(label: string): string {
+  if (/^(your|proof)\b/.test(label)) return label;
+  return `${/^[aeiou]/i.test(label) ? 'an' : 'a'} ${label}`;
+}
