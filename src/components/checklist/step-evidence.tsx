@@ -3,7 +3,6 @@
 import { customerPhotoCautions, slotCaution } from '../../lib/cautions';
 import type { UploadKind } from '../../lib/schemas/uploads';
 import UploadSlot from '../uploads/upload-slot';
-import { Caution } from './notes';
 
 export function StepEvidence({ caseId, kinds, heading = 'Photos' }: { caseId: string; kinds: UploadKind[]; heading?: string }) {
   if (kinds.length === 0) return null;
@@ -13,21 +12,27 @@ export function StepEvidence({ caseId, kinds, heading = 'Photos' }: { caseId: st
       <h3 className="text-lg font-bold text-ground-900">{heading}</h3>
       {risky && <PhotoCautions />}
       {kinds.map((kind) => (
-        <UploadSlot key={kind} caseId={caseId} kind={kind} required />
+        // Each slot's one-line caution is already in the step's Safety box and the list above.
+        <UploadSlot key={kind} caseId={caseId} kind={kind} required showCaution={false} />
       ))}
     </section>
   );
 }
 
-/** Every photo caution, as a list in the Safety box. */
+/**
+ * Every photo caution, as a list. The step's own Safety box above already says the ones that
+ * matter for its photos, and each slot repeats its own, so the whole list is one tap away rather
+ * than another screen of red on a phone.
+ */
 export function PhotoCautions() {
   return (
-    <Caution title="Safety first">
-      <ul className="list-disc space-y-1 pl-5" data-testid="photo-cautions">
+    <details className="group rounded-lg border-l-4 border-blocked bg-blocked-soft p-3 text-ink" data-testid="photo-cautions-box">
+      <summary className="cursor-pointer font-bold text-blocked">Safety when taking these photos</summary>
+      <ul className="mt-2 list-disc space-y-1 pl-5" data-testid="photo-cautions">
         {customerPhotoCautions.map((text) => (
           <li key={text}>{text}</li>
         ))}
       </ul>
-    </Caution>
+    </details>
   );
 }
