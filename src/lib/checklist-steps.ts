@@ -45,12 +45,9 @@ const LATER_STEP: Readonly<Record<string, DataStepId>> = {
   'about.propertyType': 'home',
   // Beside how the car is parked: the two together decide how far the cable must reach.
   'vehicle.chargePort': 'parking',
-  // How the supply is wired: shared with next door, and earthed.
-  'supply.looped': 'fusebox',
   'supply.consumerUnitLocation': 'fusebox',
   'supply.earthing': 'fusebox',
-  // One phase or three sits with the loads: together they decide whether the supply has room.
-  'supply.phases': 'loads',
+  'supply.phases': 'fusebox',
   'charger.preference': 'chargepoint',
   'charger.tetherMetres': 'chargepoint',
   'charger.ratingKw': 'chargepoint',

@@ -129,20 +129,20 @@ describe('the customer checklist, in Chromium', () => {
     await expect.poll(() => page.getByText('Copy the bottom line', { exact: false }).isVisible()).toBe(true);
     await snap(page, 'checklist-supply-mpan-help-390');
     await page.getByRole('radio', { name: '100 A' }).check();
+    await group(page, 'Is the supply shared with a neighbour (looped)?').getByRole('radio', { name: 'No', exact: true }).check();
     await waitSaved(page);
     await snapBoth(page, 'checklist-supply');
 
-    // Step 5: a looped supply, the consumer unit and earthing, saved under supply as before.
+    // Step 5: the consumer unit, earthing and phases, saved under supply as before.
     await nextStep(page, 'Your consumer unit and earthing');
-    await group(page, 'Is the supply shared with a neighbour (looped)?').getByRole('radio', { name: 'No', exact: true }).check();
     await page.getByLabel('Where is your consumer unit?').fill('Under the stairs');
     await page.getByRole('radio', { name: 'I don’t know' }).check();
+    await page.getByRole('radio', { name: 'Single phase' }).check();
     await waitSaved(page);
     await snapBoth(page, 'checklist-fusebox');
 
-    // Step 6: one phase or three, and the big loads (supply.phases, supply.loads.*).
+    // Step 6: the big loads (supply.loads.*).
     await nextStep(page, 'Big electric loads');
-    await page.getByRole('radio', { name: 'Single phase' }).check();
     await page.getByLabel('Electric shower rating').fill('9.5');
     await group(page, 'An electric cooker, oven or hob?').getByRole('radio', { name: 'Yes', exact: true }).check();
     await group(page, 'An immersion heater for hot water?').getByRole('radio', { name: 'No', exact: true }).check();

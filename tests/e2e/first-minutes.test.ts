@@ -209,8 +209,8 @@ describe('a refused save', () => {
     // Checked in the browser with the server's own rule: a count of cars is a whole number.
     await openStep(page, theCase.id, 'parking', 'Parking');
     await page.getByLabel('How many cars park there?').fill('2.5');
-    await page.getByRole('radio', { name: 'Nose in' }).focus();
-    await page.getByRole('radio', { name: 'Nose in' }).check();
+    await page.getByRole('radio', { name: 'Front first' }).focus();
+    await page.getByRole('radio', { name: 'Front first' }).check();
     await expect.poll(() => status(page)).toContain('Not saved');
     await expect.poll(() => page.evaluate(() => document.activeElement?.id)).toBe('f-parking-cars');
     await expect(page.getByTestId('save-problem').textContent()).resolves.toContain('How many cars park there?');
@@ -232,7 +232,7 @@ describe('a refused save', () => {
     const box = await page.getByTestId('f-charger-ratingKw').boundingBox();
     expect(box!.y).toBeGreaterThanOrEqual(-box!.height);
     expect(box!.y).toBeLessThan(PHONE.height);
-    await expect(page.getByTestId('save-problem').textContent()).resolves.toContain('How powerful a charge point would you like?');
+    await expect(page.getByTestId('save-problem').textContent()).resolves.toContain('How powerful a charger would you like?');
     await page.screenshot({ path: 'screenshots/first-refused-save-390.png' });
     expect((await savedRow(theCase.id)).checklist).toEqual({ supply: { phases: 'single' }, parking: { habit: 'nose-in' } });
     await context.close();
@@ -262,7 +262,7 @@ describe('the customer’s home page', () => {
     const items = card.getByTestId('home-needed-item');
     await expect(items.count()).resolves.toBe(3);
     await expect(items.nth(0).textContent()).resolves.toContain('Your meter and fuse');
-    await expect(items.nth(0).textContent()).resolves.toContain('the MPAN (the 13-digit supply number on your electricity bill)');
+    await expect(items.nth(0).textContent()).resolves.toContain('the MPAN (supply number) from your electricity bill');
     await expect(items.nth(0).textContent()).resolves.toContain('Send a photo of your electricity meter.');
     await expect(items.nth(1).textContent()).resolves.toContain('Your consumer unit and earthing');
     await expect(items.nth(2).textContent()).resolves.toContain('Big electric loads');
@@ -273,7 +273,7 @@ describe('the customer’s home page', () => {
     expect(actions.length).toBeGreaterThan(0);
     for (const action of actions) expect(action).not.toMatch(/(^|, or )(the|our) (office|installer|surveyor|electrician) to\b/i);
     // The shared action "…, or the office to record a measured maximum demand" keeps only the customer's half.
-    expect(actions).toContain('Look again at your answers in “Big electric loads”.');
+    expect(actions).toContain('Answer the remaining load questions.');
     await expect(card.getByTestId('home-readiness').locator('[data-light]').count()).resolves.toBeGreaterThan(0);
     await expect(card.getByTestId('home-after').textContent()).resolves.toContain('When you send your answers');
     // The demo firm from the settings (invented, example.com).

@@ -45,8 +45,8 @@ describe('readiness on the Check and send step', () => {
     await page.goto(`/my/cases/${theCase.id}#step=supply`);
     await page.getByRole('radio', { name: '100 A' }).check();
     await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 10_000 }).toBe('Saved');
-    // Phases sit with the big loads, as do the socket circuits.
-    await page.goto(`/my/cases/${theCase.id}#step=loads`);
+    // Phases sit with the fuse box and earthing, the socket circuits with the big loads.
+    await page.goto(`/my/cases/${theCase.id}#step=fusebox`);
     await page.getByRole('radio', { name: 'Single phase' }).check();
     await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 10_000 }).toBe('Saved');
     await page.getByText('Is your supply single phase or three phase?').scrollIntoViewIfNeeded();

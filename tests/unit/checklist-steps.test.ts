@@ -21,8 +21,6 @@ describe('steps', () => {
     expect(stepOfField('supply.mpanCore')).toBe('supply');
     expect(stepOfField('supply.mainFuseAmps')).toBe('supply');
     expect(stepOfField('supply.earthing')).toBe('fusebox');
-    expect(stepOfField('supply.looped')).toBe('fusebox');
-    expect(stepOfField('supply.phases')).toBe('loads');
     expect(stepOfField('supply.loads.socketCircuits')).toBe('loads');
     expect(stepOfField('vehicle.chargePort')).toBe('parking');
   });
@@ -63,10 +61,7 @@ describe('what’s next on the home page', () => {
     const order = next.needed.find((n) => n.text.includes('order agreement'))!;
     expect(order).toEqual({ step: 'vehicle', stepTitle: 'Your vehicle', text: 'Send an order agreement for the car again — your installer said: “The page is cut off”.' });
     expect(next.needed.find((n) => n.text.includes('meter'))).toMatchObject({ step: 'supply', text: 'Send a photo of your electricity meter.' });
-    // One phase or three is asked on the loads step, before the appliances.
-    expect(next.needed.find((n) => n.step === 'loads')!.text).toBe(
-      'Add whether the supply is single or three phase (“not sure” is fine) and the big electrical appliances in the home, and how many socket circuits there are.',
-    );
+    expect(next.needed.find((n) => n.step === 'loads')!.text).toBe('Add the big electrical appliances in the home, and how many socket circuits there are.');
     expect(next.done).toEqual([]);
   });
 });

@@ -3,6 +3,7 @@
 import { customerPhotoCautions, slotCaution } from '../../lib/cautions';
 import type { UploadKind } from '../../lib/schemas/uploads';
 import UploadSlot from '../uploads/upload-slot';
+import { Caution } from './notes';
 
 export function StepEvidence({ caseId, kinds, heading = 'Photos' }: { caseId: string; kinds: UploadKind[]; heading?: string }) {
   if (kinds.length === 0) return null;
@@ -12,27 +13,21 @@ export function StepEvidence({ caseId, kinds, heading = 'Photos' }: { caseId: st
       <h3 className="text-lg font-bold text-ground-900">{heading}</h3>
       {risky && <PhotoCautions />}
       {kinds.map((kind) => (
-        // Each slot's one-line caution is already in the step's Safety box and the list above.
-        <UploadSlot key={kind} caseId={caseId} kind={kind} required showCaution={false} />
+        <UploadSlot key={kind} caseId={caseId} kind={kind} required />
       ))}
     </section>
   );
 }
 
-/**
- * Every photo caution, as a list. The step's own Safety box above already says the ones that
- * matter for its photos, and each slot repeats its own, so the whole list is one tap away rather
- * than another screen of red on a phone.
- */
+/** Every photo caution, as a list in the Safety box. */
 export function PhotoCautions() {
   return (
-    <details className="group rounded-lg border-l-4 border-blocked bg-blocked-soft p-3 text-ink" data-testid="photo-cautions-box">
-      <summary className="cursor-pointer font-bold text-blocked">Safety when taking these photos</summary>
-      <ul className="mt-2 list-disc space-y-1 pl-5" data-testid="photo-cautions">
+    <Caution title="Safety first">
+      <ul className="list-disc space-y-1 pl-5" data-testid="photo-cautions">
         {customerPhotoCautions.map((text) => (
           <li key={text}>{text}</li>
         ))}
       </ul>
-    </details>
+    </Caution>
   );
 }

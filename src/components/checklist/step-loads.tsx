@@ -1,30 +1,18 @@
-// Steps 4 and 5: a looped supply, the consumer unit and earthing; then one phase or three, and the
-// big loads already in the home (they decide together whether the supply has room).
+// Steps 4 and 5: the consumer unit, earthing and phases; then the big loads already in the home.
 // Both save under supply (supply.consumerUnitLocation, supply.loads.*) as before.
 import { StepEvidence } from './step-evidence';
 import { ChoiceField, NumberField, TextField } from './fields';
 import { caution } from '../../lib/cautions';
 import { Caution, MoreHelp } from './notes';
 
-/** Step 4, Your consumer unit and earthing: a looped supply, where the consumer unit is, its photo and earthing. */
+/** Step 4, Your consumer unit and earthing: where the consumer unit is, its photo, earthing and phases. */
 export function FuseBoxStep({ caseId }: { caseId: string }) {
   return (
     <div className="space-y-6">
       <Caution>
-        <p>{caution.consumerUnitClosed} Don’t touch any wires.</p>
+        <p>Look and take photos only: never open the consumer unit or remove its cover, and don’t touch any wires. {caution.consumerUnitClosed}</p>
+        <p>{caution.danger}</p>
       </Caution>
-
-      <ChoiceField
-        path="supply.looped"
-        help="Some older homes, often terraces, share one supply cable with next door. Your installer needs to know, as the network operator may have to separate them first."
-      >
-        <MoreHelp summary="How can I tell if it’s looped?">
-          <p>
-            Look, without touching, at the cut-out. If two thick cables leave it, or one runs through the wall towards the house next
-            door, the supply may be looped. If you can’t tell, “I’m not sure” is fine.
-          </p>
-        </MoreHelp>
-      </ChoiceField>
 
       <TextField
         path="supply.consumerUnitLocation"
@@ -44,15 +32,6 @@ export function FuseBoxStep({ caseId }: { caseId: string }) {
         </MoreHelp>
       </ChoiceField>
 
-      <StepEvidence caseId={caseId} kinds={['consumer_unit_photo']} heading="A photo of your consumer unit" />
-    </div>
-  );
-}
-
-/** Step 5, Big electric loads: one phase or three, what already draws a lot of power, and the socket circuits. */
-export function LoadsStep() {
-  return (
-    <div className="space-y-6">
       <ChoiceField
         path="supply.phases"
         help="Most homes have a single-phase supply. Chargers above 7.4 kW need three phases, so it helps to know."
@@ -66,6 +45,15 @@ export function LoadsStep() {
         </MoreHelp>
       </ChoiceField>
 
+      <StepEvidence caseId={caseId} kinds={['consumer_unit_photo']} heading="A photo of your consumer unit (photos only — never open anything)" />
+    </div>
+  );
+}
+
+/** Step 5, Big electric loads: what already draws a lot of power, and the socket circuits. */
+export function LoadsStep() {
+  return (
+    <div className="space-y-6">
       <fieldset className="space-y-5 rounded-lg border border-ground-100 p-4">
         <legend className="float-left w-full text-lg font-bold text-ground-900">Big electrical loads already in your home</legend>
         <p className="field-help clear-both !mt-1 pt-1">

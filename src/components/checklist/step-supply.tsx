@@ -1,5 +1,5 @@
-// Step 3, Your meter and fuse: the MPAN and the main fuse, with photos of the meter and cut-out.
-// A looped supply, the consumer unit, earthing and phases come next (step-loads.tsx).
+// Step 3, Your meter and fuse: the MPAN, the main fuse and a looped supply, with photos of the
+// meter and cut-out. The consumer unit, earthing and phases come next (step-loads.tsx).
 import { StepEvidence } from './step-evidence';
 import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore, UNLISTED_DISTRIBUTOR } from '../../lib/validation/mpan';
 import { CheckIcon } from '../icons';
@@ -85,7 +85,19 @@ export function SupplyStep({ caseId }: { caseId: string }) {
         </MoreHelp>
       </ChoiceField>
 
-      <StepEvidence caseId={caseId} kinds={['meter_photo', 'cutout_photo']} heading="Photos of your meter and cut-out" />
+      <ChoiceField
+        path="supply.looped"
+        help="Some older homes, often terraces, share one supply cable with next door. Your installer needs to know, as the network operator may have to separate them first."
+      >
+        <MoreHelp summary="How can I tell if it’s looped?">
+          <p>
+            Look, without touching, at the cut-out. If two thick cables leave it, or one runs through the wall towards the house next
+            door, the supply may be looped. If you can’t tell, “I’m not sure” is fine.
+          </p>
+        </MoreHelp>
+      </ChoiceField>
+
+      <StepEvidence caseId={caseId} kinds={['meter_photo', 'cutout_photo']} heading="Photos of your meter and cut-out (photos only — never open anything)" />
     </div>
   );
 }

@@ -29,8 +29,6 @@ export type UploadSlotProps = {
   editable?: boolean;
   /** Told whenever this slot's files change, e.g. to refresh a step's progress. */
   onChange?: (items: UploadItem[]) => void;
-  /** False where the page already says this slot's caution just above (a checklist step's Safety box). */
-  showCaution?: boolean;
 };
 
 type WidgetModule = typeof import('./upload-widget');
@@ -180,7 +178,7 @@ function SlotStatus({ kind, items, required }: { kind: UploadKind; items: Upload
  * A self-contained upload slot for one kind of photo or document.
  * @example <UploadSlot caseId={caseId} kind="cutout_photo" required />
  */
-export default function UploadSlot({ caseId, kind, title, hint, required = false, initialItems, editable = true, onChange, showCaution = true }: UploadSlotProps) {
+export default function UploadSlot({ caseId, kind, title, hint, required = false, initialItems, editable = true, onChange }: UploadSlotProps) {
   const info = uploadKindInfo[kind];
   const heading = title ?? info.title;
   const [items, setItems] = useState<UploadItem[]>(initialItems ?? []);
@@ -309,7 +307,7 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
         )}
         <span>{hint ?? info.hint}</span>
       </p>
-      {showCaution && slotCaution(kind) && (
+      {slotCaution(kind) && (
         <p className="flex items-start gap-2 text-sm text-ground-800" data-testid="slot-caution">
           <StopIcon className="mt-0.5 h-5 w-5 text-clay-600" />
           <span>{slotCaution(kind)}</span>
