@@ -17,6 +17,9 @@ export const FLEET = {
   GW29PHV: { make: 'VELORAN', colour: 'GREY', fuelType: 'HYBRID ELECTRIC', yearOfManufacture: 2023 },
   GW29PET: { make: 'KESTRUNE', colour: 'RED', fuelType: 'PETROL', yearOfManufacture: 2019 },
   GW29DSL: { make: 'MARROWBY', colour: 'BLACK', fuelType: 'DIESEL', yearOfManufacture: 2017 },
+  // The demo's registered cars (seeds/demo-checklists.ts, demoPlates): the same records.
+  GW29RFG: { make: 'OSTREL', colour: 'GREY', fuelType: 'ELECTRICITY', yearOfManufacture: 2024 },
+  GW29CHW: { make: 'LARKSPUR', colour: 'BLUE', fuelType: 'ELECTRICITY', yearOfManufacture: 2025 },
 };
 /** Answers after `slowMs` (default 5 s): longer than the app waits. */
 export const SLOW_PLATE = 'GW29SLO';

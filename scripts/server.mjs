@@ -48,6 +48,8 @@ const assets = sirv(join(dist, 'client'), {
   setHeaders(res, pathname) {
     // Only files whose names carry a content hash may be cached for good; the rest revalidate.
     res.setHeader('Cache-Control', pathname.startsWith('/_astro/') ? IMMUTABLE : 'public, max-age=0, must-revalidate');
+    // These files never pass through the app's middleware: keep browsers from guessing their type.
+    res.setHeader('X-Content-Type-Options', 'nosniff');
   },
 });
 // threshold: below about 1 KB compression saves less than its own header overhead.

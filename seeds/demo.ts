@@ -1,16 +1,30 @@
 // The demo scenario, all invented: Fernbrook Home Energy, a small electrical contractor in the
-// fictional market town of Quillbury, preparing seven homes for charge point surveys.
+// fictional Yorkshire market town of Quillbury, preparing seven homes for charge point surveys.
+// How each postcode, supply number, VIN and plate was chosen: seeds/demo-checklists.ts.
 import { createHash, randomUUID } from 'node:crypto';
 import { eq } from 'drizzle-orm';
 import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
 import PDFDocument from 'pdfkit';
 import sharp from 'sharp';
 import { createCase, createUser, readinessColumns } from './factories';
-import { chandlersChecklist, daysFromNow, demoMpan, forgeChecklist, heronChecklist } from './demo-checklists';
-import { caseNotes, cases, settings, uploads, type CaseRow, type UploadRow } from '../src/db/schema';
+import {
+  chandlersChecklist,
+  daysFromNow,
+  demoHomes,
+  demoMpan,
+  demoPlates,
+  forgeChecklist,
+  heronChecklist,
+  orchardChecklist,
+  tannersChecklist,
+  wheelwrightChecklist,
+} from './demo-checklists';
+import { caseNotes, cases, caseVehicleLookups, settings, uploads, type CaseRow, type UploadRow } from '../src/db/schema';
 import { uploadLimits } from '../src/lib/schemas/uploads';
 import { readSiteMeasures } from '../src/lib/schemas/outcome';
 import { uploadStorage } from '../src/lib/server/storage/index.server';
+import { assessPhoto, measurePhoto, type Measured, type OtherPhoto } from '../src/lib/server/photo-quality.server';
+import { defaultReadinessSettings } from '../src/lib/readiness/settings';
 
 type Db = PostgresJsDatabase<Record<string, unknown>>;
 
@@ -37,52 +51,31 @@ export async function seedDemo(db: Db, password: string) {
   await createCase(db, {
     customerId: maren!.id,
     stage: 'filling_in',
-    addressLine1: '14 Tanners Row',
-    town: 'Quillbury',
-    postcode: 'AB12 3DE',
+    ...demoHomes.tanners,
     invitedDaysAgo: 4,
-    checklist: {
-      about: {
-        fullName: 'Maren Oakes', email: 'customer@example.com', phone: '+441134960123', addressLine1: '14 Tanners Row',
-        town: 'Quillbury', postcode: 'AB12 3DE', tenure: 'owner', propertyType: 'house',
-      },
-      vehicle: { make: 'Example Motors', model: 'Volta 5', condition: 'new', deliveryDate: daysFromNow(40), connector: 'type2' },
-    },
+    checklist: tannersChecklist(),
   });
-  await createCase(db, { customerId: tobias!.id, stage: 'invited', addressLine1: '3 Mill Lane', town: 'Quillbury', postcode: 'AB12 7EF', invitedDaysAgo: 1, fromInvitation: true });
+  await createCase(db, { customerId: tobias!.id, stage: 'invited', ...demoHomes.mill, invitedDaysAgo: 1, fromInvitation: true });
   await createCase(db, {
     customerId: delphine!.id,
     stage: 'sent_for_review',
-    addressLine1: 'Flat 2, 9 Orchard Court',
-    town: 'Quillbury',
-    postcode: 'AB13 1GH',
+    ...demoHomes.orchard,
     invitedDaysAgo: 12,
-    checklist: {
-      about: { fullName: 'Delphine Achterberg', email: 'delphine.achterberg@example.org', addressLine1: 'Flat 2, 9 Orchard Court', town: 'Quillbury', postcode: 'AB13 1GH', tenure: 'tenant', propertyType: 'flat' },
-      supply: { mpanCore: demoMpan('19', '4455667788'), mainFuseAmps: 60, looped: 'unsure', earthing: 'unknown' },
-      parking: { kind: 'detached-bay', cars: 1, habit: 'nose-in' },
-    },
+    checklist: orchardChecklist(),
   });
   await createCase(db, {
     customerId: owen!.id,
     stage: 'in_review',
-    addressLine1: 'Wheelwright Cottage, Long Street',
-    town: 'Quillbury',
-    postcode: 'AB12 9JL',
+    ...demoHomes.wheelwright,
     invitedDaysAgo: 20,
-    checklist: {
-      supply: { mpanCore: demoMpan('20', '1029384756'), mainFuseAmps: 80, looped: 'no', earthing: 'pme', loads: { showerKw: 9.5, cooker: true } },
-      charger: { location: 'Side wall by the drive', cableRunMetres: 12, route: 'along-wall', softGround: true, softGroundMetres: 3, preference: 'tethered', tetherMetres: 5 },
-    },
+    checklist: wheelwrightChecklist(),
   });
   // Every answer in, every photo accepted, and a measured maximum demand from smart-meter data:
   // the one case that clears every check.
   const chandlers = await createCase(db, {
     customerId: sunita!.id,
     stage: 'ready_for_survey',
-    addressLine1: '27 Chandlers Way',
-    town: 'Quillbury',
-    postcode: 'AB14 2LN',
+    ...demoHomes.chandlers,
     invitedDaysAgo: 26,
     checklist: chandlersChecklist(),
     siteMeasures: { measuredMaxDemandAmps: 24 },
@@ -91,9 +84,7 @@ export async function seedDemo(db: Db, password: string) {
   const forge = await createCase(db, {
     customerId: gareth!.id,
     stage: 'survey_booked',
-    addressLine1: 'The Old Forge, Church Hill',
-    town: 'Quillbury',
-    postcode: 'AB15 6NP',
+    ...demoHomes.forge,
     invitedDaysAgo: 33,
     surveyorId: surveyor.id,
     surveyDate: daysFromNow(3),
@@ -102,9 +93,7 @@ export async function seedDemo(db: Db, password: string) {
   const heron = await createCase(db, {
     customerId: fen!.id,
     stage: 'survey_booked',
-    addressLine1: '8 Heron Close',
-    town: 'Quillbury',
-    postcode: 'AB14 8QR',
+    ...demoHomes.heron,
     invitedDaysAgo: 30,
     surveyorId: surveyor.id,
     surveyDate: daysFromNow(6),
@@ -116,6 +105,12 @@ export async function seedDemo(db: Db, password: string) {
   await seedEvidence(db, { caseRow: heron, customerId: fen!.id, reviewerId: admin.id, items: heronEvidence() });
   await seedEvidence(db, { caseRow: forge, customerId: gareth!.id, reviewerId: admin.id, items: forgeEvidence() });
   await seedEvidence(db, { caseRow: chandlers, customerId: sunita!.id, reviewerId: admin.id, items: chandlersEvidence() });
+  // The registered cars were looked up in the vehicle records from the vehicle step, as a
+  // customer's look-up stores it: the office sees where the make came from, and no warning.
+  await db.insert(caseVehicleLookups).values([
+    { caseId: forge.id, ...demoPlates.forge },
+    { caseId: chandlers.id, ...demoPlates.chandlers },
+  ]);
   await db.insert(caseNotes).values([
     { caseId: heron.id, authorId: admin.id, body: 'Tenant; landlord’s letter accepted. Side gate is unlocked on survey days. Customer would like the unit left of the front door, away from the bins.' },
     { caseId: forge.id, authorId: admin.id, body: '60 A cut-out and a long buried run to the garage: expect a network operator application. Customer happy to discuss load limiting.' },
@@ -182,7 +177,7 @@ const letterSvg = demoPhoto('Landlord’s permission', `
 <text x="310" y="150" font-size="30" font-weight="700" fill="#222">Quillbury Lettings (demo)</text>
 <text x="310" y="230" font-size="24" fill="#333">To whom it may concern,</text>
 <text x="310" y="290" font-size="24" fill="#333">I agree to a charge point being fitted</text>
-<text x="310" y="330" font-size="24" fill="#333">at 8 Heron Close, Quillbury, AB14 8QR.</text>
+<text x="310" y="330" font-size="24" fill="#333">at ${demoHomes.heron.addressLine1}, ${demoHomes.heron.town}, ${demoHomes.heron.postcode}.</text>
 <text x="310" y="420" font-size="24" fill="#333">Signed: A. Landlord (invented)</text>
 <text x="310" y="720" font-size="22" fill="#777">This letter is invented for the demo.</text>`, '#cfd4d2');
 
@@ -222,8 +217,8 @@ function orderAgreementPdf(): Promise<Buffer> {
     doc.on('end', () => resolve(Buffer.concat(chunks)));
     doc.on('error', reject);
     doc.fontSize(18).text('Vehicle order agreement (SYNTHETIC DEMO DOCUMENT)');
-    doc.moveDown().fontSize(12).text('Customer: Fen Ashdown, 8 Heron Close, Quillbury, AB14 8QR');
-    doc.text('Vehicle: Example Motors Volta 5 Long Range, new');
+    doc.moveDown().fontSize(12).text(`Customer: Fen Ashdown, ${demoHomes.heron.addressLine1}, ${demoHomes.heron.town}, ${demoHomes.heron.postcode}`);
+    doc.text(`Vehicle: ${heronChecklist().vehicle.make} ${heronChecklist().vehicle.model}, new`);
     doc.text(`Expected delivery: ${daysFromNow(70)}`);
     doc.moveDown().text('Every name, address and figure in this document is invented for the Groundwork demo.');
     doc.end();
@@ -252,14 +247,16 @@ function forgeEvidence(): Evidence[] {
   ];
 }
 
-type Prepared = { evidence: Evidence; main: Buffer; thumb: Buffer | null; mimeType: string; width: number | null; height: number | null };
+type Prepared = { evidence: Evidence; main: Buffer; thumb: Buffer | null; mimeType: string; width: number | null; height: number | null; measured: Measured | null };
 
 // Images go through sharp as an upload would (JPEG plus a WebP thumbnail of the same width).
 async function prepareEvidence(evidence: Evidence): Promise<Prepared> {
-  if (evidence.pdf) return { evidence, main: await evidence.pdf(), thumb: null, mimeType: 'application/pdf', width: null, height: null };
+  if (evidence.pdf) return { evidence, main: await evidence.pdf(), thumb: null, mimeType: 'application/pdf', width: null, height: null, measured: null };
   const { data: main, info } = await sharp(Buffer.from(evidence.svg!)).jpeg({ quality: 85 }).toBuffer({ resolveWithObject: true });
   const thumb = await sharp(main).resize({ width: uploadLimits.thumbWidth, withoutEnlargement: true }).webp({ quality: 75 }).toBuffer();
-  return { evidence, main, thumb, mimeType: 'image/jpeg', width: info.width, height: info.height };
+  // The photo check, as at upload (the dim cut-out and the dark consumer unit are flagged).
+  const measured = await measurePhoto(main, info.width, info.height);
+  return { evidence, main, thumb, mimeType: 'image/jpeg', width: info.width, height: info.height, measured };
 }
 
 /** Stores each file through the storage interface, adds its uploads row, then restores the case's readiness. */
@@ -268,7 +265,10 @@ async function seedEvidence(db: Db, input: { caseRow: CaseRow; customerId: strin
   const prepared = await Promise.all(input.items.map(prepareEvidence));
   const start = Date.now() - prepared.length * 60_000 - 86_400_000;
   const rows = [];
+  const seen: OtherPhoto[] = [];
   for (const [i, p] of prepared.entries()) {
+    const quality = p.measured ? assessPhoto(p.measured, p.evidence.kind, defaultReadinessSettings, seen) : null;
+    if (p.measured) seen.push({ kind: p.evidence.kind, hash: p.measured.hash });
     const id = randomUUID();
     const shard = id.slice(0, 2);
     const storageKey = `${shard}/${id}.${p.mimeType === 'application/pdf' ? 'pdf' : 'jpg'}`;
@@ -294,6 +294,9 @@ async function seedEvidence(db: Db, input: { caseRow: CaseRow; customerId: strin
       createdAt: new Date(start + i * 60_000),
       storageKey,
       thumbKey,
+      qualityOk: quality ? quality.ok : null,
+      quality,
+      perceptualHash: p.measured?.hash ?? null,
     });
   }
   await db.insert(uploads).values(rows);
@@ -306,4 +309,18 @@ async function seedEvidence(db: Db, input: { caseRow: CaseRow; customerId: strin
     .update(cases)
     .set({ ...readiness, lastCustomerActivityAt: new Date(start + prepared.length * 60_000) })
     .where(eq(cases.id, input.caseRow.id));
+}
+
+/**
+ * Every demo photo (drawn, invented) with its slot, the office's decision and whether it was drawn
+ * hard to read on purpose, for
+ * `npm run bench:photo-quality`, which reports the photo check's false-positive rate on them.
+ */
+export function demoPhotos(): { case: string; kind: UploadRow['kind']; name: string; status: UploadRow['status']; svg: string; poor: boolean }[] {
+  const sets = { Chandler: chandlersEvidence(), Heron: heronEvidence(), Forge: forgeEvidence() };
+  // Two drawings are made hard to read on purpose: the dim cut-out and the dark consumer unit.
+  const poor = new Set([dimCutoutSvg, darkUnitSvg]);
+  return Object.entries(sets).flatMap(([name, items]) =>
+    items.filter((e) => e.svg).map((e) => ({ case: name, kind: e.kind, name: e.name, status: e.status, svg: e.svg!, poor: poor.has(e.svg!) })),
+  );
 }

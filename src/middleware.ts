@@ -5,6 +5,7 @@
 // 2. paths with doubled slashes are refused; a declared body over 1 MB is refused before anything reads it;
 // 3. session: `locals.user` is the active user whose session has not been ended, or null;
 // 4. security headers on every answer.
+import { countOf } from './lib/grammar';
 import { defineMiddleware, sequence } from 'astro:middleware';
 import { bodyRefusal } from './lib/server/body-limit.server';
 import { isDatabaseUnavailable } from './lib/server/db-errors.server';
@@ -16,7 +17,7 @@ import { findSessionUser } from './lib/server/sessions.server';
 
 function tooMany(seconds: number): Response {
   const res = errorResponse(
-    new HttpError(429, 'rate_limited', `Too many sign-in attempts. Please wait ${Math.ceil(seconds / 60)} minutes and try again.`),
+    new HttpError(429, 'rate_limited', `Too many sign-in attempts. Please wait ${countOf(Math.ceil(seconds / 60), 'minute')} and try again.`),
   );
   res.headers.set('Retry-After', String(seconds));
   return res;
@@ -51,12 +52,33 @@ const bodyCap = defineMiddleware((ctx, next) => {
 
 const failedRequests = new WeakSet<Request>();
 
+/** True when the request carries a session cookie whose session no longer stands. */
+async function endedSession(cookies: Parameters<typeof sessionTokenClaims>[0]): Promise<boolean> {
+  const claims = await sessionTokenClaims(cookies);
+  return claims !== null && claims !== undefined && !(await findSessionUser(claims));
+}
+
 const auth = defineMiddleware(async (ctx, next) => {
   ctx.locals.user = null;
   // Astro renders src/pages/500.astro for the same request through this middleware again: asking
   // the database a second time would fail again and lose the error the page explains.
   if (failedRequests.has(ctx.request)) return next();
-  if (ctx.url.pathname.startsWith('/api/auth/') || ctx.url.pathname.startsWith('/_astro/')) return next();
+  if (ctx.url.pathname.startsWith('/_astro/')) return next();
+  if (ctx.url.pathname.startsWith('/api/auth/')) {
+    // Auth.js answers its session route from the cookie alone: a cookie whose session was ended
+    // (signed out, signed out everywhere, deactivated) must not be described as signed in there.
+    if (/^\/api\/auth\/session\/?$/.test(ctx.url.pathname)) {
+      let ended: boolean;
+      try {
+        ended = await endedSession(ctx.cookies);
+      } catch (err) {
+        if (!isDatabaseUnavailable(err)) throw err;
+        return errorResponse(databaseUnavailable());
+      }
+      if (ended) return new Response('null', { status: 200, headers: { 'Content-Type': 'application/json', 'Cache-Control': 'no-store' } });
+    }
+    return next();
+  }
   // The cookie says who; the database says whether the account is active and the session has
   // not been ended, on every request, so a sign-out or deactivation takes effect at once.
   const claims = await sessionTokenClaims(ctx.cookies);

@@ -214,6 +214,12 @@ export const uploads = pgTable(
     createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
     storageKey: text('storage_key').notNull().unique(),
     thumbKey: text('thumb_key'),
+    /** The photo check at upload: false when it found a problem, null for documents (and older rows). */
+    qualityOk: boolean('quality_ok'),
+    /** The check's answer `{ ok, problems, measures }` (src/lib/photo-quality.ts). */
+    quality: jsonb('quality'),
+    /** 64-bit difference hash of the photo as 16 hex digits, compared with the case's other photos. */
+    perceptualHash: text('perceptual_hash'),
   },
   (t) => [index('uploads_case_idx').on(t.caseId, t.createdAt)],
 );

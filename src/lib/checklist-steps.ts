@@ -11,7 +11,7 @@ const sectionTitle = (id: SectionId) => sectionIds.find(([s]) => s === id)![1] a
 // Step titles of their own (the supply and charger sections are split over several steps):
 const HOME_STEP_TITLE = 'Your home';
 const METER_STEP_TITLE = 'Your meter and fuse';
-const FUSEBOX_STEP_TITLE = 'Your fuse box and earthing';
+const FUSEBOX_STEP_TITLE = 'Your consumer unit and earthing';
 const LOADS_STEP_TITLE = 'Big electric loads';
 const CHARGEPOINT_STEP_TITLE = 'Which charge point';
 const REVIEW_STEP_TITLE = 'Check and send';

@@ -3,7 +3,9 @@
 // and required uploads as the checklist, so the two never disagree.
 import type { Checklist } from './schemas/checklist';
 import type { UploadKind } from './schemas/uploads';
-import { fieldLabel } from './field-labels';
+import { article, listWords } from './grammar';
+import { endSentence, quoted } from './punctuation';
+import { customerGapLabel } from './vocabulary/fields';
 import { requiredUploadKinds } from './readiness/checks/documents';
 import { uploadKindLabels, uploadKindStatus } from './readiness/upload-status';
 import type { ChecklistAnswers, UploadSummary } from './readiness/types';
@@ -41,32 +43,20 @@ export function customerNext(checklist: Checklist, prefilled: readonly string[],
     const step = uploadStep[kind];
     const title = progress.find((p) => p.id === step)!.title;
     let text: string | null = null;
-    if (status.state === 'missing') text = `Send ${withArticle(uploadKindLabels[kind])}.`;
-    if (status.state === 'rejected') text = `Send ${withArticle(uploadKindLabels[kind])} again${status.reason ? ` — your installer said: “${status.reason}”` : ''}`;
-    if (text) uploadsByStep.set(step, [...(uploadsByStep.get(step) ?? []), { step, stepTitle: title, text: text.endsWith('.') ? text : `${text}.` }]);
+    if (status.state === 'missing') text = `Send ${article(uploadKindLabels[kind])} ${uploadKindLabels[kind]}.`;
+    if (status.state === 'rejected') text = endSentence(`Send a new ${uploadKindLabels[kind]}${status.reason ? ` — your installer said: ${quoted(status.reason)}` : ''}`);
+    if (text) uploadsByStep.set(step, [...(uploadsByStep.get(step) ?? []), { step, stepTitle: title, text }]);
   }
   for (const p of progress) {
     const toAnswer = p.missing.filter((path) => !p.toConfirm.includes(path));
     if (p.toConfirm.length > 0) needed.push({ step: p.id, stepTitle: p.title, text: 'Check the details your installer filled in, and confirm them.' });
     if (toAnswer.length > 0) {
       // One phrase covers all the load questions, so say each phrase once.
-      const words = [...new Set(toAnswer.map((path) => fieldLabel(path.split('.')[0]!, path.slice(path.indexOf('.') + 1))))];
-      needed.push({ step: p.id, stepTitle: p.title, text: `${sentence(`add ${listWords(words)}`)}.` });
+      const words = [...new Set(toAnswer.map((path) => customerGapLabel(path)))];
+      needed.push({ step: p.id, stepTitle: p.title, text: endSentence(sentence(`add ${listWords(words)}`)) });
     }
     needed.push(...(uploadsByStep.get(p.id) ?? []));
   }
   const done = progress.filter((p) => p.complete && !(uploadsByStep.get(p.id)?.length)).map((p) => ({ step: p.id, title: p.title }));
   return { done, needed };
-}
-
-/** "a, b and c". @example listWords(["a", "b", "c"]) // "a, b and c" */
-export function listWords(words: string[]): string {
-  if (words.length <= 1) return words[0] ?? '';
-  return `${words.slice(0, -1).join(', ')} and ${words.at(-1)}`;
-}
-
-/** "a photo of …", "an order agreement …", "your landlord's permission" (no article before "your" or "proof"). */
-function withArticle(label: string): string {
-  if (/^(your|proof)\b/.test(label)) return label;
-  return `${/^[aeiou]/i.test(label) ? 'an' : 'a'} ${label}`;
 }

@@ -11,28 +11,8 @@ export const stages = [
 ] as const;
 export type StageId = (typeof stages)[number];
 
-export const stageLabels: Record<StageId, string> = {
-  invited: 'Invited',
-  filling_in: 'Filling in',
-  sent_for_review: 'Sent for review',
-  in_review: 'In review',
-  ready_for_survey: 'Ready for survey',
-  survey_booked: 'Survey booked',
-  surveyed: 'Surveyed',
-  withdrawn: 'Withdrawn',
-};
-
-/** What the customer reads about where their case is. */
-export const stageForCustomer: Record<StageId, string> = {
-  invited: 'Not started yet',
-  filling_in: 'In progress — carry on when you’re ready',
-  sent_for_review: 'Sent to your installer',
-  in_review: 'Your installer is checking it',
-  ready_for_survey: 'Ready — your installer will book a survey',
-  survey_booked: 'Survey booked',
-  surveyed: 'Survey done',
-  withdrawn: 'Closed',
-};
+// The words live in the vocabulary; re-exported so existing callers keep one import.
+export { customerStage, stageLabels } from './vocabulary/stages';
 
 const forward: Record<StageId, StageId[]> = {
   invited: ['filling_in'],

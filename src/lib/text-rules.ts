@@ -1,5 +1,6 @@
 // When Groundwork may text a customer, and what a text may keep. Pure: no database, no clock
 // (the caller passes the hour), so the rules are tested on their own.
+import { countOf } from './grammar';
 
 /** A customer's text consent as stored (null: they never opted in). */
 export type TextConsent = { mobile: string; consentedAt: Date; withdrawnAt: Date | null } | null;
@@ -67,6 +68,6 @@ export function isStopReply(text: string): boolean {
  * @example reminderText({ firstName: 'Sam', firmName: 'Fernbrook', count: 2, url: 'https://…' })
  */
 export function reminderText(input: { firstName: string; firmName: string; count: number; url: string }): string {
-  const things = input.count === 1 ? '1 thing' : `${input.count} things`;
+  const things = countOf(input.count, 'thing');
   return `${input.firmName}: hello ${input.firstName}, ${things} still needed before we can book your charge point survey. Carry on here: ${input.url} Reply STOP to stop texts.`;
 }

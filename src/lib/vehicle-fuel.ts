@@ -2,6 +2,7 @@
 // Pure and client-safe. The fuel type words are those of the government vehicle enquiry
 // service's records (from memory of its public API documentation: ELECTRICITY, PETROL, DIESEL,
 // HYBRID ELECTRIC, ELECTRIC DIESEL, GAS BI-FUEL, …).
+import { withArticle } from './grammar';
 
 export type FuelFit = 'electric' | 'hybrid' | 'not-electric' | 'unknown';
 
@@ -35,7 +36,7 @@ export function fuelAdvice(fuelType: string | null | undefined, registration: st
   const fit = fuelFit(fuelType);
   if (fit === 'electric') return null;
   if (fit === 'hybrid') {
-    return `The records for ${registration} say it is a ${fuelWords(fuelType!)} car. Only plug-in hybrids can use a charge point, so if yours has no charging socket, please check the number plate. Is this the right car?`;
+    return `The records for ${registration} say it is ${withArticle(`${fuelWords(fuelType!)} car`)}. Only plug-in hybrids can use a charge point, so if yours has no charging socket, please check the number plate. Is this the right car?`;
   }
   if (fit === 'unknown') return `The records for ${registration} do not say what fuel it uses. Is this the right car?`;
   return `Is this the right car? The records for ${registration} say it runs on ${fuelWords(fuelType!)}, and a charge point is for electric and plug-in hybrid cars. Please check the number plate, or carry on if this is a car you are replacing.`;

@@ -64,6 +64,16 @@ export async function snap(page: Page, name: string) {
   await page.screenshot({ path: join(dir, `${name}.png`), fullPage: true });
 }
 
+/** Screenshots at phone and desktop width from the top, then back to the phone. */
+export async function snapBoth(page: Page, name: string) {
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await snap(page, `${name}-390`);
+  await page.setViewportSize(DESKTOP);
+  await page.evaluate(() => window.scrollTo(0, 0));
+  await snap(page, `${name}-1280`);
+  await page.setViewportSize(PHONE);
+}
+
 /** Signs a customer in the way a real one does: ask for a link, follow the nth one from the inbox. */
 export async function signInByLink(page: Page, email: string, nth = 1) {
   const { linkIn, waitForMessage } = await import('../helpers/mail');
@@ -80,3 +90,29 @@ export async function signInByLink(page: Page, email: string, nth = 1) {
 export async function waitForIslands(page: Page) {
   await page.waitForFunction(() => document.querySelectorAll('astro-island[ssr]').length === 0, undefined, { timeout: 30_000 });
 }
+
+export const STAFF_PASSWORD = process.env.DEMO_PASSWORD ?? 'groundwork-demo';
+
+/** Signs a member of staff in on the sign-in page's staff tab (demo password unless given). */
+export async function signInStaff(page: Page, email: string, password = STAFF_PASSWORD) {
+  await page.goto('/signin');
+  await page.locator('[data-ready="true"]').waitFor();
+  await page.getByRole('tab', { name: 'Installer staff' }).click();
+  await page.getByLabel('E-mail address').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+/**
+ * The customer's photos page, once its slots have hydrated (Astro drops an island's `ssr`
+ * attribute then). Each slot shows a light drop zone; Uppy's widget replaces it once used.
+ */
+export async function openPhotos(page: Page, caseId: string) {
+  await page.goto(`/my/cases/${caseId}/photos`);
+  await page.locator('astro-island:not([ssr]) [data-testid^="upload-slot-"] [data-testid="drop-zone"]').first().waitFor();
+}
+
+/** One upload slot on the photos page. */
+export const uploadSlot = (page: Page, kind: string) => page.getByTestId(`upload-slot-${kind}`);
+/** The drop zone's own picker, or Uppy's once the widget is open: both are named files[]. */
+export const slotFileInput = (page: Page, kind: string) => uploadSlot(page, kind).locator('input[type="file"][name="files[]"]:not([webkitdirectory])');

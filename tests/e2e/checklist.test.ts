@@ -3,7 +3,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
-import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink, waitForIslands } from './browser';
+import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink, snapBoth, waitForIslands } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 
@@ -22,16 +22,6 @@ async function waitSaved(page: Page) {
   await expect.poll(() => status(page), { timeout: 10_000 }).toBe('Saved');
 }
 
-/** Screenshots at phone and desktop width, then back to the phone (from the top, so the
- * desktop sidebar, which sticks while scrolling, is drawn where a visitor first sees it). */
-async function snapBoth(page: Page, name: string) {
-  await page.evaluate(() => window.scrollTo(0, 0));
-  await snap(page, `${name}-390`);
-  await page.setViewportSize(DESKTOP);
-  await page.evaluate(() => window.scrollTo(0, 0));
-  await snap(page, `${name}-1280`);
-  await page.setViewportSize(PHONE);
-}
 
 async function nextStep(page: Page, title: string) {
   await page.getByTestId('step-next').click();
@@ -123,7 +113,7 @@ describe('the customer checklist, in Chromium', () => {
     // first 12 digits is 1349 (TRADE-REFERENCE worked example), 1349 mod 11 = 7, so the 13th
     // digit must be 7 (MRA/Elexon rule as described in the MPAN article).
     await nextStep(page, 'Your meter and fuse');
-    const mpan = page.getByLabel('MPAN core (13 digits)');
+    const mpan = page.getByLabel('MPAN, your 13-digit supply number');
     await expect(mpan.getAttribute('inputmode')).resolves.toBe('numeric');
     await mpan.fill('1312345678906');
     await mpan.press('Tab');
@@ -144,8 +134,8 @@ describe('the customer checklist, in Chromium', () => {
     await snapBoth(page, 'checklist-supply');
 
     // Step 5: the consumer unit, earthing and phases, saved under supply as before.
-    await nextStep(page, 'Your fuse box and earthing');
-    await page.getByLabel('Where is your consumer unit (fuse box)?').fill('Under the stairs');
+    await nextStep(page, 'Your consumer unit and earthing');
+    await page.getByLabel('Where is your consumer unit?').fill('Under the stairs');
     await page.getByRole('radio', { name: 'I don’t know' }).check();
     await page.getByRole('radio', { name: 'Single phase' }).check();
     await waitSaved(page);
@@ -160,7 +150,7 @@ describe('the customer checklist, in Chromium', () => {
     // Storage heaters are left blank on purpose: the one gap the send dialog must list.
     await group(page, 'Another EV charge point already?').getByRole('radio', { name: 'No', exact: true }).check();
     await group(page, 'Solar panels or a home battery?').getByRole('radio', { name: 'Yes', exact: true }).check();
-    await group(page, 'How many socket circuits does your fuse box have?').getByRole('radio', { name: '3', exact: true }).check();
+    await group(page, 'How many socket circuits does your consumer unit have?').getByRole('radio', { name: '3', exact: true }).check();
     await waitSaved(page);
     await snapBoth(page, 'checklist-loads');
 
@@ -211,8 +201,9 @@ describe('the customer checklist, in Chromium', () => {
     await page.screenshot({ path: 'screenshots/checklist-send-dialog-390.png' });
     await dialog.getByRole('button', { name: 'Send anyway' }).click();
     await page.getByTestId('sent-confirmation').waitFor();
-    await expect(page.getByTestId('stage-word').textContent()).resolves.toBe('Sent for review');
-    await expect(page.getByTestId('case-stage').textContent()).resolves.toContain('Sent for review');
+    await expect(page.getByTestId('stage-word').textContent()).resolves.toBe('Sent to your installer');
+    // The customer reads their own stage words once, never the office's name for the stage.
+    await expect(page.getByTestId('case-stage').textContent()).resolves.not.toContain('Sent for review');
     await snapBoth(page, 'checklist-sent');
 
     // What the database holds: normalised values, and the stage.
@@ -323,7 +314,7 @@ describe('the customer checklist, in Chromium', () => {
 
     // Saves fail, then the tab is closed: the answer waits in this browser and is sent next visit.
     await context.route('**/api/cases/*/checklist', (route) => route.abort('internetdisconnected'));
-    await page.getByRole('radio', { name: 'Front first' }).check();
+    await page.getByRole('radio', { name: 'Nose in' }).check();
     await expect.poll(() => status(page), { timeout: 10_000 }).toMatch(/^Not saved — retrying/);
     await page.close();
     await context.unroute('**/api/cases/*/checklist');
@@ -331,7 +322,7 @@ describe('the customer checklist, in Chromium', () => {
     const again = await context.newPage();
     await again.goto(`/my/cases/${theCase.id}#step=parking`);
     await expect.poll(() => again.getByTestId('checklist-notice').textContent()).toContain('typed earlier');
-    await expect(again.getByRole('radio', { name: 'Front first' }).isChecked()).resolves.toBe(true);
+    await expect(again.getByRole('radio', { name: 'Nose in' }).isChecked()).resolves.toBe(true);
     await waitSaved(again);
     expect((await savedRow(theCase.id)).checklist).toEqual({ parking: { kind: 'garage', cars: 1, habit: 'nose-in' } });
     await context.close();

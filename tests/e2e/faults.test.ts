@@ -78,13 +78,13 @@ describe('autosave under faults', () => {
 
   it('the tab closed while a save was on its way: the answer is sent on the next visit', async () => {
     const { theCase, page, context } = await customerOnStep('parking');
-    await page.getByRole('radio', { name: 'Front first' }).waitFor();
+    await page.getByRole('radio', { name: 'Nose in' }).waitFor();
     let held = 0;
     // The save leaves the tab but never arrives (a tunnel, a lift): the route holds it unanswered.
     await context.route(CHECKLIST, () => {
       held++;
     });
-    await page.getByRole('radio', { name: 'Front first' }).check();
+    await page.getByRole('radio', { name: 'Nose in' }).check();
     await expect.poll(() => held, { timeout: 10_000 }).toBe(1);
     await page.close();
     await context.unroute(CHECKLIST);

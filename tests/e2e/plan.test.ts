@@ -132,7 +132,7 @@ describe('the driveway plan, in Chromium', () => {
     await expect(verdictText(page, 'nose-in')).resolves.toContain('Doesn’t reach when you park nose in — needs 7.7 m');
     await expect(verdictText(page, 'reverse-in')).resolves.toContain('Doesn’t reach when you reverse in — needs 10.6 m');
     await expect(page.getByTestId('plan-verdict-nose-in-1').count()).resolves.toBe(0);
-    await page.getByTestId('plan-way-toggle').getByText('Reversed in').click();
+    await page.getByTestId('plan-way-toggle').getByText('Reversing in').click();
     await expect(page.getByTestId('plan-cable').count()).resolves.toBe(1);
     await page.locator('[data-testid="plan-save-status"][data-status="saved"]').waitFor({ timeout: 10_000 });
     await snap(page, 'plan-two-bays-390');
@@ -157,6 +157,27 @@ describe('the driveway plan, in Chromium', () => {
     const along = Number(await page.getByRole('textbox', { name: /^From the left corner of the wall/ }).inputValue());
     expect(along).toBeLessThan(2.5);
     expect(along).toBeGreaterThan(0);
+    expect(problemsOf(page)).toEqual([]);
+    await context.close();
+  });
+
+  it('with one car in the household, the other bay is empty and the cable goes straight', async () => {
+    // The same driveway as above, but the parking step says one car: bay 1 holds nothing. Nose
+    // in: from the charge point (3, 0) straight to the port (3.925, 6.25) — the car's own body is
+    // not in its own way — √(0.925² + 6.25²) = √39.918125 = 6.318, + 1 slack = 7.318 → "needs
+    // 7.3 m". Reversed: to (2.075, 9.15), √(0.925² + 9.15²) = √84.578125 = 9.197, + 1 = 10.197 →
+    // "needs 10.2 m". (Worked by hand from the geometry above.)
+    const user = await createUser(db, { role: 'customer', name: 'Odile Marchbank' });
+    const row = await createCase(db, {
+      customerId: user.id,
+      checklist: { vehicle: { chargePort: 'front-left' }, charger: { preference: 'tethered', tetherMetres: 5 }, parking: { habit: 'varies', cars: 1 } },
+    });
+    const { page, context } = await newPage(PHONE);
+    await signInByLink(page, user.email);
+    await openPlan(page, row.id);
+    await page.getByRole('button', { name: 'Add one behind it' }).click();
+    await expect(verdictText(page, 'nose-in-2')).resolves.toContain('needs 7.3 m');
+    await expect(verdictText(page, 'reverse-in-2')).resolves.toContain('needs 10.2 m');
     expect(problemsOf(page)).toEqual([]);
     await context.close();
   });

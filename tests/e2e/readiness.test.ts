@@ -58,7 +58,7 @@ describe('readiness on the Check and send step', () => {
     await page.getByRole('radio', { name: '2', exact: true }).check();
     await expect.poll(() => page.getByTestId('save-status').textContent(), { timeout: 10_000 }).toBe('Saved');
     await page.setViewportSize(DESKTOP);
-    await page.getByText('How many socket circuits does your fuse box have?').scrollIntoViewIfNeeded();
+    await page.getByText('How many socket circuits does your consumer unit have?').scrollIntoViewIfNeeded();
     await snap(page, 'supply-socket-circuits-1280');
     await page.setViewportSize(PHONE);
     await page.goto(`/my/cases/${theCase.id}#step=review`);

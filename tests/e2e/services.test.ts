@@ -4,7 +4,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
-import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink, waitForIslands } from './browser';
+import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink, waitForIslands, snapBoth } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 import { textsTo, uniqueMobile, until } from '../helpers/services';
@@ -14,14 +14,6 @@ afterAll(close);
 
 const waitLong = { timeout: 15_000 };
 
-async function snapBoth(page: Page, name: string) {
-  await page.evaluate(() => window.scrollTo(0, 0));
-  await snap(page, `${name}-390`);
-  await page.setViewportSize(DESKTOP);
-  await page.evaluate(() => window.scrollTo(0, 0));
-  await snap(page, `${name}-1280`);
-  await page.setViewportSize(PHONE);
-}
 
 async function savedVehicle(caseId: string) {
   const [row] = await db.select().from(schema.cases).where(eq(schema.cases.id, caseId));

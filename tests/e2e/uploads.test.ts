@@ -3,10 +3,11 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { BrowserContext, Page } from 'playwright-core';
-import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink } from './browser';
+import { baseUrl, close, DESKTOP, newPage, openPhotos, PHONE, problemsOf, slotFileInput, snap, signInByLink, uploadSlot } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 import { noisyJpeg, smallImage, tinyPdf } from '../fixtures/uploads';
+import { sharpPhoto, spoil } from '../fixtures/photo-quality';
 
 afterAll(close);
 
@@ -24,16 +25,8 @@ async function tenantWithCase(name: string) {
   return { user, row };
 }
 
-// Astro drops an island's `ssr` attribute once React has hydrated it. Each slot shows a light
-// drop zone; Uppy's widget replaces it once the customer uses the slot.
-async function openPhotos(page: Page, caseId: string) {
-  await page.goto(`/my/cases/${caseId}/photos`);
-  await page.locator('astro-island:not([ssr]) [data-testid^="upload-slot-"] [data-testid="drop-zone"]').first().waitFor();
-}
-
-const slot = (page: Page, kind: string) => page.getByTestId(`upload-slot-${kind}`);
-// The drop zone's own picker, or Uppy's once the widget is open: both are named files[].
-const fileInput = (page: Page, kind: string) => slot(page, kind).locator('input[type="file"][name="files[]"]:not([webkitdirectory])');
+const slot = uploadSlot;
+const fileInput = slotFileInput;
 const dropZoneOrWidget = '[data-testid="drop-zone"], .uppy-Dashboard';
 /** Scripts the page has fetched so far. */
 const scriptsLoaded = (page: Page) =>
@@ -62,7 +55,13 @@ describe('photos and documents, in Chromium', () => {
     }
     await expect(slot(page, 'parking_evidence').getByTestId('slot-status').textContent()).resolves.toBe('Optional');
     await expect(slot(page, 'cutout_photo').textContent()).resolves.toContain('The fuse carrier with its rating (60, 80 or 100 A) readable');
-    await expect(page.getByTestId('photo-caution').textContent()).resolves.toContain('never remove their covers');
+    const photoCaution = await page.getByTestId('photo-caution').textContent();
+    // The cautions from src/lib/cautions.ts: photos only, cover closed, meter cupboard, appliance rating, 105.
+    expect(photoCaution).toContain('remove covers: photos only');
+    expect(photoCaution).toContain('with its cover closed');
+    expect(photoCaution).toContain('meter cupboard door to look');
+    expect(photoCaution).toContain('read its rating');
+    expect(photoCaution).toContain('call 105');
     await snap(page, 'uploads-empty-390');
 
     // Uppy (about 65 KB compressed) is not fetched until a slot is used.
@@ -166,10 +165,17 @@ describe('photos and documents, in Chromium', () => {
     // The camera input asks for the rear camera (HTML Media Capture, capture="environment").
     await expect(slot(page, 'cutout_photo').locator('input[name="camera-photo"]').getAttribute('capture')).resolves.toBe('environment');
     await snap(page, 'uploads-touch-390');
+    // A slot for a document (the landlord's letter, often a PDF) opens the file picker, not the camera.
+    await expect(slot(page, 'landlord_permission').getByText('Take a photo', { exact: true }).count()).resolves.toBe(0);
+    await expect(slot(page, 'landlord_permission').locator('input[name="camera-photo"]').count()).resolves.toBe(0);
+    await expect(slot(page, 'landlord_permission').getByText('Choose a file', { exact: true }).isVisible()).resolves.toBe(true);
     // Opening the slot brings Uppy's own widget, which offers the camera too.
     await slot(page, 'cutout_photo').getByTestId('drop-zone').click({ position: { x: 8, y: 8 } });
     await slot(page, 'cutout_photo').getByRole('tab', { name: 'Take a photo' }).waitFor();
     await expect(slot(page, 'cutout_photo').locator('input[name="camera-photo"]').getAttribute('capture')).resolves.toBe('environment');
+    // A flagged photo's "Take again" opens the rear camera too.
+    await fileInput(page, 'cutout_photo').setInputFiles({ name: 'fuse.jpg', mimeType: 'image/jpeg', buffer: await spoil.blurred(await sharpPhoto()) });
+    await expect(slot(page, 'cutout_photo').getByTestId('retake-input').getAttribute('capture', { timeout: 20_000 })).resolves.toBe('environment');
     await context.close();
   });
 

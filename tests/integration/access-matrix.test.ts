@@ -57,6 +57,8 @@ const matrix: Record<string, Record<string, Row>> = {
   'api/cases/[id]/chase.ts': { POST: r(401, 403, 403, 200, 403, 403) },
   'api/cases/[id]/stage.ts': { POST: r(401, 403, 403, 422, 403, 403) },
   'api/cases/[id]/outcome.ts': { POST: r(401, 403, 403, 422, 422, 404) },
+  // Measured demand and earthing figures: the office and the assigned surveyor.
+  'api/cases/[id]/site-measures.ts': { PUT: r(401, 403, 403, 422, 422, 404) },
   'api/cases/[id]/pack.pdf.ts': { GET: r(401, 404, 404, 200, 200, 404) },
   'api/uploads/[id].ts': { GET: r(401, 200, 404, 200, 200, 404), DELETE: r(401, 200, 404, 403, 403, 404) },
   'api/uploads/[id]/review.ts': { POST: r(401, 403, 403, 422, 403, 403) },
@@ -67,6 +69,8 @@ const matrix: Record<string, Record<string, Row>> = {
   'api/staff/password.ts': { POST: all(422) },
 
   '404.astro': { GET: all(404) },
+  // The error page, opened by its own address, is the error page: nothing of a case on it.
+  '500.astro': { GET: all(500) },
   // The public landing page, for everyone.
   'index.astro': { GET: all(200) },
   'home.astro': { GET: r(302, 302, 302, 302, 302, 302) },

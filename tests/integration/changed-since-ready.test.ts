@@ -39,7 +39,7 @@ describe('changes after the case was marked ready', () => {
     const asOffice = await admin.json(`/api/cases/${c!.id}`);
     const changes = asOffice.body.changedSinceReady.changes as { what: string; detail: string }[];
     expect(changes.map((x) => x.what)).toEqual(['answers', 'upload_added']);
-    expect(changes[0]!.detail).toBe('the main fuse rating');
+    expect(changes[0]!.detail).toBe('Main fuse (cut-out), as read');
     // The office page shows it too.
     expect(await (await admin.fetch(`/office/cases/${c!.id}`)).text()).toContain('Changed since it was marked ready');
     // The customer does not get the office's view of it.

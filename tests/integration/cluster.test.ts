@@ -112,7 +112,7 @@ describe('two app nodes behind one load balancer', () => {
   it('a customer signs in through node A and uses the session on node B', async () => {
     const user = await createUser(db, { role: 'customer', name: 'Two Node Customer' });
     const c = await createCase(db, { customerId: user.id });
-    const onA = await signInWithLink(user.email, 1, nodeA.url);
+    const onA = await signInWithLink(user.email, 1, nodeA.url, lbUrl);
     const onB = onA.at(nodeB.url);
     expect((await onB.json('/api/me')).body).toMatchObject({ id: user.id, role: 'customer' });
     expect((await onB.json(`/api/cases/${c.id}`)).status).toBe(200);
@@ -123,7 +123,7 @@ describe('two app nodes behind one load balancer', () => {
   it('an upload through node A downloads through node B, byte for byte, from the bucket', async () => {
     const user = await createUser(db, { role: 'customer' });
     const c = await createCase(db, { customerId: user.id });
-    const onA = await signInWithLink(user.email, 1, nodeA.url);
+    const onA = await signInWithLink(user.email, 1, nodeA.url, lbUrl);
     const form = new FormData();
     form.append('kind', 'meter_photo');
     form.append('file', new Blob([new Uint8Array(await smallImage('jpeg', 640, 480))], { type: 'image/jpeg' }), 'meter.jpg');

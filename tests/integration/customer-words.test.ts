@@ -4,8 +4,8 @@ import { Client } from '../helpers/http';
 import { newCustomer, newStaff } from '../helpers/people';
 
 // PME earthing with no open soil by the charge point: BS 7671:2018+A2:2022 Regulation 722.411.4.1
-// asks for an open-PEN device or an electrode; the check tells the firm to plan one ("The installer to
-// plan an open-PEN protective device…") — a staff action the customer must not be shown.
+// asks for an open-PEN device or an electrode; the check tells the firm to choose one ("The office or surveyor to
+// record the 722.411.4.1 measure…") — a staff action the customer must not be shown.
 const checklist = {
   supply: { mainFuseAmps: 100, looped: 'no', earthing: 'pme', loads: { showerKw: 0, cooker: false, immersion: false, heatPumpKw: 0, storageHeaters: 0, otherEvCharger: false, solarPv: false } },
   charger: { cableRunMetres: 8, route: 'through-wall', softGround: false },
@@ -21,7 +21,9 @@ describe('customers see customer words only', () => {
     const { client, case: c } = await newCustomer({ checklist });
     const staff = await admin.json(`/api/cases/${c!.id}/readiness`);
     expect(staff.body.checks.some((x: { staffText?: string }) => typeof x.staffText === 'string')).toBe(true);
-    const staffActions = staff.body.checks.flatMap((x: { actions: string[] }) => x.actions).filter((a: string) => /^the (office|installer)/i.test(a));
+    // Every action a check writes is for the firm; none may reach the customer, however worded.
+    const staffActions = staff.body.checks.flatMap((x: { actions: string[] }) => x.actions) as string[];
+    expect(staffActions.some((a) => /^the (office|installer|surveyor)/i.test(a))).toBe(true);
 
     const answers = [
       await client.json(`/api/cases/${c!.id}/readiness`),
@@ -33,11 +35,13 @@ describe('customers see customer words only', () => {
       const text = JSON.stringify(a.body);
       expect(text).not.toContain('staffText');
       expect(text).not.toContain('"figures"');
+      expect(text).not.toContain('"actions"');
       for (const action of staffActions) expect(text).not.toContain(action);
     }
     // The customer still gets their own words and the things they can do.
-    const mine = answers[0]!.body.checks as { customerText: string; actions: string[] }[];
+    const mine = answers[0]!.body.checks as { light: string; customerText: string; customerActions: { place: string; text: string }[] }[];
     expect(mine.every((x) => x.customerText.length > 0)).toBe(true);
+    expect(mine.filter((x) => x.light !== 'green').every((x) => x.customerActions.length > 0)).toBe(true);
   });
 
   it('answers bad ids and numbers with 404 or 422, never 500', async () => {

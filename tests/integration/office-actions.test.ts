@@ -150,9 +150,9 @@ describe('chasing, notes and the audit trail', () => {
     const { case: c, user } = await newCustomer({ checklist: { about: { fullName: 'Chase Me' }, parking: { kind: 'detached-bay' } } });
     const r = await admin.send('POST', `/api/cases/${c!.id}/chase`, {});
     expect(r.status).toBe(200);
-    expect(r.body.items).toContain('Upload a proof of your parking space.');
+    expect(r.body.items).toContain('Upload a document showing the parking space is yours to use.');
     const mail = await waitForMessage(user.email, 2);
-    expect(mail.text).toContain('Your supply: add the MPAN (supply number) from your electricity bill');
+    expect(mail.text).toContain('Your supply: add the MPAN (the 13-digit supply number on your electricity bill)');
     expect(mail.text).toContain('Upload a photo of the main fuse (cut-out).');
     expect(linkIn(mail, baseUrl)).toContain('/api/auth/callback/nodemailer');
     const history = (await admin.json(`/api/cases/${c!.id}/emails`)).body.items;

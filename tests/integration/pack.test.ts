@@ -58,6 +58,10 @@ async function upload(client: Client, kind: string, bytes: Buffer, name: string)
 
 const words = (text: string) => text.replace(/\s+/g, ' ');
 
+// The saved ids of this case's choices and of the figures' codes, which must read as words.
+const RAW_IDS = ['front-left', 'attached-drive', 'nose-in', 'reverse-in', 'notify-after', 'apply-before', 'tether-assumed', 'customer-cable-assumed'];
+const rawIdsIn = (text: string) => RAW_IDS.filter((id) => new RegExp(`(^|[^\\w-])${id}([^\\w-]|$)`).test(text));
+
 async function pdfText(bytes: Buffer): Promise<{ text: string; pages: number }> {
   const parser = new PDFParse({ data: new Uint8Array(bytes) });
   try {
@@ -115,12 +119,16 @@ describe('GET /api/cases/:id/pack.pdf', () => {
     // Open gaps: the missing connector answer and the missing consumer unit photo, in the customer's words,
     // and the cable-run check, amber because a buried 32 m run is long and costly (common practice).
     expect(all).toContain('the car’s charging plug type');
-    expect(all).toContain('Upload a photo of your consumer unit (fuse box).');
-    expect(all).toContain('Cable from your fuse box to the charger');
+    expect(all).toContain('Upload a photo of your consumer unit.');
+    expect(all).toContain('Cable from your consumer unit to the charge point');
     // The cautions, word for word as the trade reference gives them ("Cautions to show").
     expect(all).toContain('Never open the cut-out, the meter or the consumer unit, or remove covers: photos only.');
     expect(all).toContain('Only the network operator (or its agent) may change the main fuse or the cut-out.');
     expect(all).toContain('designed, installed and certified by a qualified electrician under BS 7671');
+    // Saved ids never reach the PDF: the port, the parking and the habit read in staff words.
+    expect(rawIdsIn(all)).toEqual([]);
+    expect(all).toContain('Front left');
+    expect(all).toContain('Driveway at the home');
     // Every page carries the reference and "page N of M".
     expect(pages).toBeGreaterThanOrEqual(2);
     for (let n = 1; n <= pages; n += 1) expect(all).toContain(`${reference} · page ${n} of ${pages}`);
@@ -151,9 +159,11 @@ describe('the pack page /surveys/cases/:id', () => {
     expect(html).toContain(`<strong data-testid="recommended-size">${RECOMMENDED}</strong>`);
     expect(html).toMatch(/data-testid="cable-basis">Ib 32 A ≤ In 32 A ≤ Iz; 70 °C terminals; method D/);
     expect(html).toMatch(/data-testid="earthing-measure">Not recorded yet/);
-    expect(html).toContain('Upload a photo of your consumer unit (fuse box).');
+    expect(html).toContain('Upload a photo of your consumer unit.');
     expect(html).toContain('Never open the cut-out, the meter or the consumer unit, or remove covers: photos only.');
     expect(html).toMatch(/@page\s*\{\s*size:\s*A4;\s*margin:\s*15mm;?\s*\}/);
+    // Saved ids never reach the page's text (attributes such as data-testid are not read).
+    expect(rawIdsIn(html.replace(/<style[\s\S]*?<\/style>|<script[\s\S]*?<\/script>|<[^>]+>/g, ' '))).toEqual([]);
     // Photos as thumbnails at least 300 px wide (the stored thumbnails are 480 px).
     const images = [...html.matchAll(/<img[^>]*src="\/api\/uploads\/[0-9a-f-]{36}\?size=thumb"[^>]*>/g)];
     expect(images).toHaveLength(2);
@@ -176,7 +186,7 @@ describe('the pack page /surveys/cases/:id', () => {
     const mine = words(await (await surveyor.fetch('/surveys')).text());
     expect(mine).toContain(`data-reference="${reference}"`);
     expect(mine).toContain('21 Weaver Street');
-    expect(mine).toContain('Cable from your fuse box to the charger');
+    expect(mine).toContain('Cable from your consumer unit to the charge point');
     const theirs = await (await otherSurveyor.fetch('/surveys')).text();
     expect(theirs).not.toContain(reference);
   });

@@ -1,6 +1,6 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
-import { db, schema } from '../helpers/db';
+import { db, reminderOnlyFor, schema } from '../helpers/db';
 import { messagesTo } from '../helpers/mail';
 import { createCase, createUser } from '../../seeds/factories';
 import { casesDueReminder, hourInGb, sendReminder, startReminderWorker, SEND_QUEUE } from '../../src/lib/server/reminders.server';
@@ -50,6 +50,7 @@ describe('automatic reminders', () => {
 
   it('sends one reminder through the job queue, and not again after a restart or a repeated job', async () => {
     const { user, row } = await invitedCustomer(5);
+    await reminderOnlyFor([row.id]);
     const first = await startReminderWorker();
     bosses.push(first);
     for (const due of await casesDueReminder(noonGb())) {

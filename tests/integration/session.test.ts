@@ -3,6 +3,7 @@
 // HKDF over AUTH_SECRET salted with the cookie name) and sent as a browser would.
 import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
+import { randomUUID } from 'node:crypto';
 import { encode } from '@auth/core/jwt';
 import { baseUrl } from '../helpers/http';
 import { db, schema } from '../helpers/db';
@@ -20,8 +21,15 @@ async function me(token: string, name = COOKIE) {
   return { status: res.status, body: (await res.json()) as { id?: string; error?: { code: string } } };
 }
 
-const tokenFor = (uid: string, opts: { maxAge?: number; secret?: string; salt?: string } = {}) =>
-  encode({ token: { uid, role: 'admin', sub: uid }, secret: opts.secret ?? secret(), salt: opts.salt ?? COOKIE, maxAge: opts.maxAge ?? 3600 });
+// The claims the app's own sign-in puts in the token: the user, a session id (so one session can
+// be ended) and the user's session version (so all of them can).
+const tokenFor = (uid: string, opts: { maxAge?: number; secret?: string; salt?: string; claims?: Record<string, unknown> } = {}) =>
+  encode({
+    token: opts.claims ?? { uid, role: 'admin', sub: uid, sid: randomUUID(), sv: 0 },
+    secret: opts.secret ?? secret(),
+    salt: opts.salt ?? COOKIE,
+    maxAge: opts.maxAge ?? 3600,
+  });
 
 describe('the session cookie', () => {
   it('a token Auth.js made for an active user signs them in, under either cookie name', async () => {
@@ -39,7 +47,9 @@ describe('the session cookie', () => {
     const otherSalt = await tokenFor(user.id, { salt: '__Secure-authjs.session-token' });
     const good = await tokenFor(user.id);
     const tampered = good.slice(0, -4) + (good.endsWith('AAAA') ? 'BBBB' : 'AAAA');
-    for (const token of [expired, otherSecret, otherSalt, tampered, 'not-a-token']) {
+    // A token made before sessions carried an id cannot be ended on its own, so it is refused.
+    const withoutSession = await tokenFor(user.id, { claims: { uid: user.id, role: 'admin', sub: user.id } });
+    for (const token of [expired, otherSecret, otherSalt, tampered, withoutSession, 'not-a-token']) {
       await expect(me(token)).resolves.toMatchObject({ status: 401, body: { error: { code: 'unauthenticated' } } });
     }
   });

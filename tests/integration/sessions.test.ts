@@ -17,6 +17,16 @@ describe('ending sessions', () => {
     expect(await me(client)).toBe(401);
     expect(await me(stolen)).toBe(401);
     expect((await stolen.fetch('/office')).status).toBe(302);
+    // Auth.js's own session route, which reads only the cookie, does not vouch for it either.
+    const session = await stolen.fetch('/api/auth/session');
+    expect(session.status).toBe(200);
+    expect(await session.json()).toBeNull();
+  });
+
+  it('describes a standing session on the Auth.js session route', async () => {
+    const { client, user } = await newStaff('admin');
+    const session = (await (await client.fetch('/api/auth/session')).json()) as { user?: { email?: string } } | null;
+    expect(session?.user?.email).toBe(user.email);
   });
 
   it('makes a customer session cookie worthless after signing out, and leaves their other sessions alone', async () => {

@@ -2,7 +2,7 @@
 // across processes: the counts live in PostgreSQL (rate_limits), so this test process, acting as
 // a second app process, sees and adds to the counts the server made.
 import { describe, expect, it } from 'vitest';
-import { eq, like } from 'drizzle-orm';
+import { like } from 'drizzle-orm';
 import { Client, baseUrl } from '../helpers/http';
 import { db, schema } from '../helpers/db';
 import { messagesTo } from '../helpers/mail';
@@ -58,12 +58,15 @@ describe('password limits are counted inside the credentials check', () => {
   it('counts a forged X-Forwarded-For under the real peer, never under the forged address', async () => {
     const user = await createUser(db, { role: 'admin', password: TEST_PASSWORD });
     const forged = Array.from({ length: 3 }, (_, i) => `198.51.100.${10 + i}`);
-    await db.delete(schema.rateLimits).where(eq(schema.rateLimits.key, 'password-address:forwarded-untrusted'));
+    // No TRUST_PROXY in the test stack, and the server knows the socket's address: every forged
+    // header is counted under the address the requests really came from (this machine).
+    const peer = new URL(baseUrl).hostname;
+    const before = (await signInLimits.passwordPerAddress.peek(peer)).count;
     for (const address of forged) await wrong(user.email, PASSWORD, { 'x-forwarded-for': address });
     const keys = await db.select().from(schema.rateLimits).where(like(schema.rateLimits.key, 'password-address:%'));
-    expect(keys.map((k) => k.key).filter((k) => forged.some((f) => k.includes(f)))).toEqual([]);
-    // No TRUST_PROXY in the test stack: every forged header lands in one shared bucket.
-    expect(keys.find((k) => k.key === 'password-address:forwarded-untrusted')?.count).toBe(3);
+    expect(keys.map((k) => k.key).filter((k) => forged.some((f) => k.includes(f)) || k.endsWith(':forwarded-untrusted'))).toEqual([]);
+    // Other test files may sign in from this machine at the same moment, so at least three more.
+    expect((await signInLimits.passwordPerAddress.peek(peer)).count - before).toBeGreaterThanOrEqual(3);
     // And forging a fresh address per request does not reset the per-e-mail count either.
     await wrong(user.email, PASSWORD, { 'x-forwarded-for': '198.51.100.99' });
     await wrong(user.email, PASSWORD, { 'x-forwarded-for': '198.51.100.98' });

@@ -117,6 +117,9 @@ describe('the app killed in the middle of uploads', () => {
       const statuses = await Promise.all(answers);
       expect(statuses.filter((s) => s === 0).length, 'some uploads were cut off by the kill').toBeGreaterThan(0);
 
+      // A COMMIT the app sent just before it died still completes in PostgreSQL a moment later,
+      // so let the dead process's sessions finish before reading what was stored.
+      await sleep(500);
       const rows = await db.select().from(schema.uploads).where(eq(schema.uploads.caseId, c.case!.id));
       // A 201 is a committed row; a cut-off request may have committed just before the kill too.
       expect(rows.length).toBeGreaterThanOrEqual(statuses.filter((s) => s === 201).length);
@@ -126,7 +129,13 @@ describe('the app killed in the middle of uploads', () => {
       }
       // Whatever is left over is removed by the sweep (grace 0 here: the app is dead, nothing is in flight).
       await sweepStorage({ storage: new LocalDiskStorage(dir), scratch: join(dir, '.incoming'), graceMinutes: 0, now: new Date(Date.now() + 1000) });
-      const referenced = new Set(rows.flatMap((r) => [r.storageKey, r.thumbKey]).filter(Boolean));
+      // Read again: a row whose COMMIT landed late must still have its files, and keeps them.
+      const after = await db.select().from(schema.uploads).where(eq(schema.uploads.caseId, c.case!.id));
+      for (const row of after) {
+        expect(existsSync(join(dir, row.storageKey)), `file of row ${row.id}`).toBe(true);
+        if (row.thumbKey) expect(existsSync(join(dir, row.thumbKey)), `thumbnail of row ${row.id}`).toBe(true);
+      }
+      const referenced = new Set(after.flatMap((r) => [r.storageKey, r.thumbKey]).filter(Boolean));
       expect(listFiles(dir).filter((f) => !referenced.has(f))).toEqual([]);
     } finally {
       if (app.exitCode === null) app.kill('SIGKILL');

@@ -381,7 +381,7 @@ describe('who may send, see and delete uploads', () => {
     expect(items.map((i) => i.kind)).toEqual(['meter_photo', 'other', 'charger_location_photo']);
     expect(items[2]).toEqual(second.body);
     expect(Object.keys(items[0]!).sort()).toEqual(
-      ['createdAt', 'height', 'id', 'kind', 'mimeType', 'originalName', 'reason', 'reviewedAt', 'sizeBytes', 'status', 'thumbUrl', 'url', 'width'].sort(),
+      ['createdAt', 'height', 'id', 'kind', 'mimeType', 'originalName', 'quality', 'reason', 'reviewedAt', 'sizeBytes', 'status', 'thumbUrl', 'url', 'width'].sort(),
     );
     const meters = await owner.client.json(`/api/cases/${owner.case!.id}/uploads?kind=meter_photo`);
     expect(meters.body.items.map((i: { id: string }) => i.id)).toEqual([uploadId]);

@@ -59,7 +59,7 @@ describe('what’s next on the home page', () => {
     expect(next.needed[1]!.step).toBe('home');
     expect(next.needed[1]!.text).toMatch(/^Add the first line of the address, the town, the postcode, whether you own or rent the home and whether it is a house or a flat\.$/);
     const order = next.needed.find((n) => n.text.includes('order agreement'))!;
-    expect(order).toEqual({ step: 'vehicle', stepTitle: 'Your vehicle', text: 'Send an order agreement for the car again — your installer said: “The page is cut off”.' });
+    expect(order).toEqual({ step: 'vehicle', stepTitle: 'Your vehicle', text: 'Send a new order agreement for the car — your installer said: “The page is cut off”.' });
     expect(next.needed.find((n) => n.text.includes('meter'))).toMatchObject({ step: 'supply', text: 'Send a photo of your electricity meter.' });
     expect(next.needed.find((n) => n.step === 'loads')!.text).toBe('Add the big electrical appliances in the home, and how many socket circuits there are.');
     expect(next.done).toEqual([]);

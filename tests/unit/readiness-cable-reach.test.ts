@@ -216,7 +216,7 @@ describe('reach verdict for every port and way (bay A, C at (2.6, 0), slack 1 m)
     // Three bays is more than the plan allows (one or two).
     expect(planProblems(plan({ bays: [bayA, bayB, bayB] }))).toHaveLength(1);
     expect(planProblems({ ...plan(), car: 'big' })).toEqual(["Choose your car's size."]);
-    expect(planProblems({ ...plan(), chargePort: 'roof' })).toEqual(['Pick where the charge port is on your car.']);
+    expect(planProblems({ ...plan(), chargePort: 'roof' })).toEqual(['Pick where the charging socket is on the car.']);
     expect(planProblems({ scribble: true }).length).toBeGreaterThan(1);
   });
 });
@@ -278,7 +278,7 @@ describe('cable-reach check', () => {
 
   it.each([
     { name: 'no plan', charger: { preference: 'tethered' as const }, port: 'front-left' as const, action: /Draw your driveway plan/ },
-    { name: 'no port', charger: { preference: 'tethered' as const, plan: plan() }, port: null, action: /charge port/ },
+    { name: 'no port', charger: { preference: 'tethered' as const, plan: plan() }, port: null, action: /charging socket/ },
     { name: 'no bay', charger: { preference: 'tethered' as const, plan: plan({ bays: [] }) }, port: 'front-left' as const, action: /parking bay/ },
     // Saved JSON that is not a plan at all: amber, never a crash.
     { name: 'junk plan', charger: { preference: 'tethered' as const, plan: { bays: 'none' } as unknown as DrivewayPlan }, port: 'front-left' as const, action: /./ },

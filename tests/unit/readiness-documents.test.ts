@@ -54,6 +54,14 @@ describe('documents light', () => {
     expect(result.figures.waitingKinds).toEqual(['meter_photo']);
   });
 
+  it('ends a reason the office typed with a full stop only once, in every text', () => {
+    const uploads: UploadSummary[] = [...accepted(BASE.slice(0, 1).concat(BASE.slice(2))), { kind: 'cutout_photo', status: 'rejected', reason: 'Too dark: the rating cannot be read.' }];
+    const result = documents({ supply: {} }, uploads);
+    for (const text of [result.customerText, result.staffText, ...result.actions]) expect(text).not.toMatch(/\.[)”]?\./);
+    expect(result.customerText).toContain('cut-out): Too dark: the rating cannot be read. Please send another.');
+    expect(result.staffText).toContain('cut-out photo (Too dark: the rating cannot be read).');
+  });
+
   it('is red when one is rejected, with the reason', () => {
     const uploads: UploadSummary[] = [...accepted(BASE.slice(0, 1).concat(BASE.slice(2))), { kind: 'cutout_photo', status: 'rejected', reason: 'Too dark to read the fuse rating' }];
     const result = documents({}, uploads);

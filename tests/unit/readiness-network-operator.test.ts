@@ -5,8 +5,9 @@ import { resolveReadinessSettings } from '../../src/lib/readiness/settings';
 import type { ChecklistAnswers, FuseRating, LoadAnswers, Looped, ReadinessSettingsInput, SiteMeasures, SupplyPhases } from '../../src/lib/readiness';
 
 // Energy Networks Association, "Connecting electric vehicles and heat pumps" and its application
-// form: where every notification criterion is met, install and notify within 28 days ("connect
-// and notify", the trade body's name, from memory); otherwise apply first ("apply to connect"):
+// form: where every notification criterion is met, install and notify within 28 days ("Connect &
+// Notify", as the ENA's FAQ on connecting EVs and heat pumps writes it); otherwise apply first
+// ("Apply to Connect", beside it in NIE Networks' LCT process page, maintained by the ENA's LCT group):
 // new maximum demand over the cut-out rating or over 60 A (13.8 kVA single phase), a looped
 // supply, an unknown cut-out. Per phase on three phases, and charge points above 32 A per phase
 // apply first (from memory).
@@ -72,13 +73,13 @@ describe('network-operator light and figures', () => {
   it('is green for a settled connect-and-notify, with 28 days to notify and no lead time', () => {
     const result = check({ fuse: 100, looped: 'no', loads: declared });
     expect(result.light).toBe('green');
-    expect(result.figures).toMatchObject({ route: 'notify-after', routeName: 'connect and notify', leadTimeDays: 0, notifyWithinDays: 28, settled: true });
+    expect(result.figures).toMatchObject({ route: 'notify-after', routeName: 'Connect & Notify', leadTimeDays: 0, notifyWithinDays: 28, settled: true });
   });
 
   it('is amber for apply to connect, carrying the lead time from settings', () => {
     const result = check({ fuse: 100, looped: 'no', loads: { ...declared, socketCircuits: 2 }, ratingKw: 7.4 });
     expect(result.light).toBe('amber');
-    expect(result.figures).toMatchObject({ route: 'apply-before', routeName: 'apply to connect', leadTimeDays: 28, applyBeforeKnown: true });
+    expect(result.figures).toMatchObject({ route: 'apply-before', routeName: 'Apply to Connect', leadTimeDays: 28, applyBeforeKnown: true });
     expect(result.staffText).toMatch(/82\.54 A exceeds 60 A \(13\.8 kVA single phase\)/);
   });
 
@@ -101,6 +102,6 @@ describe('network-operator light and figures', () => {
 
   it('says "until we know more" when only unknowns point to applying first', () => {
     expect(check({ fuse: null, looped: 'no', loads: declared }).customerText).toMatch(/^Until we know a little more/);
-    expect(check({ fuse: 100, looped: 'yes', loads: declared }).customerText).toMatch(/^Before the charger is connected/);
+    expect(check({ fuse: 100, looped: 'yes', loads: declared }).customerText).toMatch(/^Before the charge point is connected/);
   });
 });

@@ -3,7 +3,7 @@
 import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { get, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { stageForCustomer, stageLabels } from '../../lib/stages';
+import { customerStage } from '@/lib/vocabulary/stages';
 import { ChevronLeftIcon, ChevronRightIcon, InfoIcon, StopIcon, WarningIcon } from '../icons';
 import { confirmDetails, loadCase, patchChecklist, type CaseView } from './api-client';
 import { AutosaveQueue, type QueueListener, type SaveStatus } from './autosave-queue';
@@ -32,11 +32,11 @@ const intros: Record<StepId, string> = {
   about: 'Who we’re talking to, and how your installer can reach you.',
   home: 'The home the charge point is for.',
   vehicle: 'The car decides the plug and how far the cable must reach. If it hasn’t arrived yet, answer from your order.',
-  supply: 'A few details about the electricity coming into your home. Most are on a bill, or can be read by looking — never touching — at the meter and fuse box.',
-  fusebox: 'Where your fuse box is, and how your supply is earthed and wired. Look only; guesses and “not sure” are fine.',
+  supply: 'A few details about the electricity coming into your home. Most are on a bill, or can be read by looking — never touching — at the meter and consumer unit.',
+  fusebox: 'Where your consumer unit is, and how your supply is earthed and wired. Look only; guesses and “not sure” are fine.',
   loads: 'The big electrical appliances already in your home. Together with a charger they decide whether your supply has room.',
   parking: 'Where the car will stand while it charges.',
-  charger: 'Where you’d like the charge point and how a cable could reach it. Rough answers are fine: the surveyor checks everything.',
+  charger: 'Where you’d like the charge point and how a cable could reach it. Rough answers are fine: your installer checks everything at the survey.',
   chargepoint: 'The kind of charge point you’d like. If you’re not sure, your installer will talk it through with you at the survey.',
   review: 'Check your answers, fill any gaps you can, then send them to your installer.',
 };
@@ -299,9 +299,8 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
           <p className="text-sm font-semibold uppercase tracking-wide text-clay-600">Case {view.reference}</p>
           <h1 className="text-2xl font-bold text-ground-900 sm:text-3xl">Your charge point checklist</h1>
           <p className="mt-2 flex flex-wrap items-center gap-x-2 gap-y-1 text-ground-800" data-testid="case-stage">
-            <span>Stage:</span>
-            <span className="rounded-full border border-ground-200 bg-white px-2.5 py-0.5 text-sm font-semibold text-ground-900">{stageLabels[view.stage]}</span>
-            <span className="text-ground-700">{stageForCustomer[view.stage]}</span>
+            <span className="rounded-full border border-ground-200 bg-white px-2.5 py-0.5 text-sm font-semibold text-ground-900" data-testid="stage-word">{customerStage[view.stage].label}</span>
+            <span className="text-ground-700">{customerStage[view.stage].next}</span>
           </p>
         </header>
         <div className="lg:grid lg:grid-cols-[17rem_minmax(0,1fr)] lg:items-start lg:gap-8">

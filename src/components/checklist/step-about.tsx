@@ -7,7 +7,7 @@ import { useChecklist } from './checklist-context';
 import { fieldDefs } from './field-defs';
 import { CheckIcon } from '../icons';
 import { stepOfField, type StepId } from '../../lib/checklist-steps';
-import { listWords } from '../../lib/customer-next';
+import { listWords } from '../../lib/grammar';
 import { Note } from './notes';
 import { lazy, Suspense, useEffect, useState } from 'react';
 
@@ -69,7 +69,7 @@ export function AboutStep({ caseId }: { caseId: string }) {
         inputMode="tel"
         autoComplete="tel"
         normalise={tidyPhone}
-        help="A mobile is best, so the surveyor can reach you on the day."
+        help="A mobile is best, so your installer can reach you on the day."
       />
       {/* Only after hydration: a lazy part suspending mid-hydration would leave the fields below it unwired. */}
       {hydrated && (

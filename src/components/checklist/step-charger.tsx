@@ -16,7 +16,7 @@ export function ChargerStep({ caseId }: { caseId: string }) {
       <NumberField
         path="charger.cableRunMetres"
         placeholder="e.g. 8"
-        help="From the consumer unit to that spot, following the walls rather than a straight line. A rough guess is fine; the surveyor will measure."
+        help="From the consumer unit to that spot, following the walls rather than a straight line. A rough guess is fine; your installer will measure."
       />
       <ChoiceField path="charger.route" />
       <ChoiceField

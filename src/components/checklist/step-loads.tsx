@@ -2,9 +2,10 @@
 // Both save under supply (supply.consumerUnitLocation, supply.loads.*) as before.
 import { StepEvidence } from './step-evidence';
 import { ChoiceField, NumberField, TextField } from './fields';
+import { caution } from '../../lib/cautions';
 import { Caution, MoreHelp } from './notes';
 
-/** Step 4, Your fuse box and earthing: where the consumer unit is, its photo, earthing and phases. */
+/** Step 4, Your consumer unit and earthing: where the consumer unit is, its photo, earthing and phases. */
 export function FuseBoxStep({ caseId }: { caseId: string }) {
   return (
     <div className="space-y-6">
@@ -55,8 +56,8 @@ export function LoadsStep() {
       <fieldset className="space-y-5 rounded-lg border border-ground-100 p-4">
         <legend className="float-left w-full text-lg font-bold text-ground-900">Big electrical loads already in your home</legend>
         <p className="field-help clear-both !mt-1 pt-1">
-          These add up with a charger at busy times. Give 0 for anything you don’t have. A rating is usually on a label on the front or
-          underside of the appliance, or in its manual.
+          These add up with a charge point at busy times. Give 0 for anything you don’t have. A rating is usually on a label on the front or
+          underside of the appliance, or in its manual. {caution.applianceRating}
         </p>
         <NumberField path="supply.loads.showerKw" placeholder="e.g. 9.5" help="An electric shower heats its own water, usually 7 to 10.5 kW." />
         <ChoiceField path="supply.loads.cooker" columns={2} help="An oven, hob or range that runs on electricity." />
@@ -68,7 +69,7 @@ export function LoadsStep() {
         <ChoiceField
           path="supply.loads.socketCircuits"
           columns={3}
-          help="Look at the labels beside the switches in your fuse box (consumer unit), or in your photo of it: count the ones marked sockets, ring or power. Don’t open anything."
+          help="Look at the labels beside the switches in your consumer unit, or in your photo of it: count the ones marked sockets, ring or power. Don’t open anything."
         />
       </fieldset>
     </div>

@@ -3,7 +3,6 @@
 import { useEffect, useRef, useState } from 'react';
 import type { Checklist } from '../../lib/schemas/checklist';
 import type { StepId, StepProgress } from '../../lib/checklist-steps';
-import { stageForCustomer, stageLabels } from '../../lib/stages';
 import { CheckIcon, PencilIcon, SendIcon, SpinnerIcon, StopIcon, WarningIcon } from '../icons';
 import { loadCase, submitCase, type CaseView, type Gap } from './api-client';
 import { fieldId } from './checklist-context';
@@ -89,11 +88,8 @@ function SentConfirmation({ view }: { view: CaseView }) {
         <CheckIcon className="h-8 w-8 text-clear" />
         <div>
           <h3 ref={heading} tabIndex={-1} className="text-xl font-bold text-ground-900">
-            Sent to your installer
+            Thank you: your answers are on their way
           </h3>
-          <p className="mt-1">
-            Stage: <strong data-testid="stage-word">{stageLabels[view.stage]}</strong> — {stageForCustomer[view.stage]}.
-          </p>
           {view.submittedAt && <p className="mt-1 text-ground-700">Sent on {dateTime.format(new Date(view.submittedAt))}.</p>}
           <p className="mt-2">
             Their office will check your answers and get in touch about the survey. If anything changes, you can come back and update an

@@ -5,6 +5,7 @@ import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore, UNLISTED_DISTRIB
 import { CheckIcon } from '../icons';
 import { useChecklist } from './checklist-context';
 import { ChoiceField, NumberField, TextField, useFieldValue } from './fields';
+import { caution } from '../../lib/cautions';
 import { Caution, MoreHelp } from './notes';
 
 /** The region line shown once an MPAN core passes its check digit. */
@@ -58,11 +59,10 @@ export function SupplyStep({ caseId }: { caseId: string }) {
   return (
     <div className="space-y-6">
       <Caution>
-        <p>
-          Never open the cut-out, the meter or the consumer unit, and never remove any cover. Everything here can be read from where you
-          stand. If something looks damaged or scorched, keep away and tell your installer.
-        </p>
-        <p>Only your network operator, or someone working for them, may change the main fuse or the cut-out.</p>
+        <p>{caution.photosOnly} Everything here can be read from where you stand.</p>
+        <p>{caution.meterCupboard}</p>
+        <p>{caution.danger}</p>
+        <p>{caution.mainFuseCustomer}</p>
       </Caution>
 
       <MpanField />

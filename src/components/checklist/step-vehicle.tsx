@@ -30,6 +30,13 @@ function vehicleWarning(field: 'registration' | 'vin', value: string): string | 
   return fieldWarnings({ vehicle: { [field]: field === 'vin' ? normaliseVin(value) : value } })[`vehicle.${field}`] ?? null;
 }
 
+/** True while the vehicle records are about to be, or being, asked about this plate. */
+function awaitingRecords(lookup: ReturnType<typeof useVehicleLookup>, registration: string): boolean {
+  if (lookup) return lookup.outcome.kind === 'pending';
+  const checked = checkRegistration(registration);
+  return checked.ok && checked.format !== 'unknown';
+}
+
 export function VehicleStep({ caseId }: { caseId: string }) {
   const condition = useFieldValue('vehicle.condition');
   const { form } = useChecklist();
@@ -75,8 +82,9 @@ export function VehicleStep({ caseId }: { caseId: string }) {
             spellCheck={false}
             size="short"
             normalise={tidyRegistration}
-            // A plate the vehicle records hold has been issued, whatever its age identifier suggests.
-            warning={lookup?.outcome.kind === 'found' ? null : vehicleWarning('registration', registration)}
+            // A plate the vehicle records hold has been issued, whatever its age identifier suggests,
+            // so the warning waits for the look-up (it starts half a second after typing stops).
+            warning={awaitingRecords(lookup, registration) || lookup?.outcome.kind === 'found' ? null : vehicleWarning('registration', registration)}
             help="The number plate, for example AB12 CDE."
             confirmation={lookup && lookup.outcome.kind !== 'off' ? <VehicleLookupNote state={lookup} /> : null}
           />

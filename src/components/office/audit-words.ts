@@ -1,7 +1,8 @@
 // The audit trail in sentences: who did what, with each changed answer from → to.
 import { uploadKindInfo, type UploadKind } from '../../lib/schemas/uploads';
 import { stageLabels, type StageId } from '../../lib/stages';
-import { staffLabel } from './answer-labels';
+import { countOf } from '@/lib/grammar';
+import { auditValue, staffLabel } from '@/lib/vocabulary';
 import type { AuditItem } from './case-types';
 import { formatDay } from './format';
 
@@ -46,9 +47,9 @@ export function describeAudit(item: AuditItem, uploadKindById: Record<string, Up
       return { text: 'opened the case and invited the customer', details: after.note ? [`Note in the invitation: “${valueWords(after.note, 1000)}”`] : [] };
     case 'checklist.updated': {
       const keys = Object.keys(after).length ? Object.keys(after) : Object.keys(before);
-      const changes = keys.map((k) => `${staffLabel(k)} from ${valueWords(before[k])} to ${valueWords(after[k])}`);
+      const changes = keys.map((k) => `${staffLabel(k)} from ${auditValue(k, before[k])} to ${auditValue(k, after[k])}`);
       if (changes.length === 1) return { text: `changed ${changes[0]}`, details: [] };
-      return { text: `changed ${changes.length} answers`, details: changes };
+      return { text: `changed ${countOf(changes.length, 'answer')}`, details: changes };
     }
     case 'checklist.confirmed':
       return { text: 'confirmed the details the office filled in from the invitation', details: [] };
@@ -59,7 +60,7 @@ export function describeAudit(item: AuditItem, uploadKindById: Record<string, Up
         const who = typeof after.surveyorId === 'string' ? staffNames[after.surveyorId] : undefined;
         details.push(`Survey on ${formatDay(String(after.surveyDate))}${who ? ` with ${who}` : ''}`);
       }
-      if (typeof after.gaps === 'number' && after.gaps > 0) details.push(`Sent with ${after.gaps} gap${after.gaps === 1 ? '' : 's'} acknowledged`);
+      if (typeof after.gaps === 'number' && after.gaps > 0) details.push(`Sent with ${countOf(after.gaps, 'unanswered field')} acknowledged`);
       return { text: `moved the case from ${stageWord(before.stage)} to ${stageWord(after.stage)}`, details };
     }
     case 'upload.added':
@@ -87,7 +88,7 @@ export function describeAudit(item: AuditItem, uploadKindById: Record<string, Up
     case 'case.reminded': {
       const items = Array.isArray(after.items) ? (after.items as string[]) : [];
       const what = item.action === 'case.chased' ? 'chased the customer by e-mail' : 'sent an automatic reminder';
-      return { text: `${what} for ${items.length} item${items.length === 1 ? '' : 's'}`, details: items };
+      return { text: `${what} for ${countOf(items.length, 'item')}`, details: items };
     }
     default:
       return { text: item.action.replace(/[._]/g, ' '), details: [] };

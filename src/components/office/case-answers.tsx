@@ -2,7 +2,10 @@
 import { sectionIds, type Checklist, type SectionId, type SectionProgress } from '../../lib/schemas/checklist';
 import { summaryRows } from '../checklist/progress';
 import { CheckIcon, WarningIcon } from '../icons';
-import { staffLabel } from './answer-labels';
+import { countOf } from '@/lib/grammar';
+import { staffAnswer, staffLabel } from '@/lib/vocabulary';
+import { valueAt } from '../checklist/form-values';
+import type { FieldDef } from '../checklist/field-defs';
 import type { VehicleLookupInfo } from './case-types';
 import { formatDayTime } from './format';
 import { fuelFit, fuelWords } from '../../lib/vehicle-fuel';
@@ -13,7 +16,7 @@ function planSummary(checklist: Checklist): string | null {
   const plan = checklist.charger?.plan as { bays?: unknown[] } | null | undefined;
   if (!plan) return null;
   const bays = Array.isArray(plan.bays) ? plan.bays.length : 0;
-  return `Drawn (${bays} ${bays === 1 ? 'bay' : 'bays'}) — see the cable reach check`;
+  return `Drawn (${countOf(bays, 'bay')}) — see the cable reach check`;
 }
 
 /**
@@ -34,8 +37,15 @@ export function vehicleSourceWords(checklist: Checklist, lookup: VehicleLookupIn
   return `Make typed by the customer; the vehicle records for ${registration} show ${record} (looked up ${when}).${fuel}`;
 }
 
+// Choices read in staff words; phone, MPAN, dates and measures read the same for everyone.
+function staffValue(def: FieldDef, checklist: Checklist, shown: string | null): string | null {
+  if (shown === null || !['choice', 'numchoice', 'yesno', 'fuse'].includes(def.kind)) return shown;
+  const { present, value } = valueAt(checklist, def.path);
+  return staffAnswer(def.path, value, present) ?? shown;
+}
+
 function Section({ id, title, checklist, progress, warnings, note }: { id: SectionId; title: string; checklist: Checklist; progress?: SectionProgress; warnings: Record<string, string>; note?: string | null }) {
-  const rows = summaryRows(id, checklist);
+  const rows = summaryRows(id, checklist).map((r) => ({ def: r.def, value: staffValue(r.def, checklist, r.value) }));
   const answered = rows.filter((r) => r.value !== null);
   // Unanswered fields are listed on one line, so a half-filled case stays short to read.
   const missing = new Set((progress?.missing ?? []).map((m) => `${id}.${m}`));
@@ -82,7 +92,22 @@ function Section({ id, title, checklist, progress, warnings, note }: { id: Secti
   );
 }
 
-export function CaseAnswers({ checklist, progress, warnings, vehicleLookup }: Props) {
+/**
+ * The answer warnings the office should see. A plate the vehicle records hold has been issued,
+ * whatever its age identifier suggests, so its registration warning is dropped (as on the
+ * customer's vehicle step).
+ *
+ * @example officeWarnings({ 'vehicle.registration': '…not in use yet…' }, { vehicle: { registration: 'GW29 EVA' } }, { registration: 'GW29 EVA' }) // {}
+ */
+export function officeWarnings(warnings: Record<string, string>, checklist: Checklist, lookup: { registration: string } | null | undefined): Record<string, string> {
+  const plate = checklist.vehicle?.registration;
+  if (!lookup || !plate || lookup.registration !== plate || !warnings['vehicle.registration']) return warnings;
+  const { 'vehicle.registration': _onRecord, ...rest } = warnings;
+  return rest;
+}
+
+export function CaseAnswers({ checklist, progress, warnings: all, vehicleLookup }: Props) {
+  const warnings = officeWarnings(all, checklist, vehicleLookup);
   return (
     <section aria-labelledby="answers-heading" className="card" id="answers">
       <h2 id="answers-heading" className="text-lg font-bold text-ground-900">Answers</h2>

@@ -1,5 +1,6 @@
 // One case for the office: header with stage and light, stage moves and chase, every check with
 // its figures, the answers, the uploads to review, and notes, e-mails and history beside them.
+import { gapWords } from '@/lib/vocabulary/pack';
 import { useCallback, useEffect, useState } from 'react';
 import type { UploadItem, UploadKind } from '../../lib/schemas/uploads';
 import { SendIcon, SpinnerIcon } from '../icons';
@@ -111,7 +112,7 @@ export default function CaseWorkspace({ initial, people, surveyors, vehicleLooku
             <dt className="text-ground-700">Readiness</dt>
             <dd data-testid="case-light" className="flex flex-wrap items-center gap-2">
               <LightBadge light={readiness.light} />
-              <span className="text-ground-700">{readiness.gapCount === 0 ? 'no open gaps' : plural(readiness.gapCount, 'open gap')}</span>
+              <span className="text-ground-700">{readiness.gapCount === 0 ? 'no open checks' : gapWords.staffOpen(readiness.gapCount)}</span>
             </dd>
             <dt className="text-ground-700">Surveyor</dt>
             <dd>{surveyor ? `${surveyor.name ?? 'Assigned'}${view.surveyDate ? `, ${formatDay(view.surveyDate)}` : ''}` : <span className="text-ground-600">Not assigned</span>}</dd>

@@ -1,6 +1,8 @@
 // What each readiness check computed, laid out the way the trade reads it: the demand working,
 // the voltage-drop table by cable size, the network-operator route, the cable reach per way of
 // parking; anything else as labelled figures.
+import { cableSourceWords, loadsDeclaredWords, networkRouteWord, portWord, staffAnswer, wayWord } from '@/lib/vocabulary';
+import { countOf } from '@/lib/grammar';
 import type { ReactNode } from 'react';
 import type { CheckResult } from '../../lib/readiness/types';
 import { uploadKindInfo, type UploadKind } from '../../lib/schemas/uploads';
@@ -85,7 +87,7 @@ function SupplyHeadroom({ f }: { f: Figures }) {
           ['Main fuse (cut-out)', f.fuseAmps === null ? 'Not known' : amps(f.fuseAmps)],
           ['Headroom', f.headroomAmps === null || f.headroomAmps === undefined ? '—' : amps(f.headroomAmps)],
           ['Comfortable margin', amps(f.marginAmps)],
-          ['Loads declared', f.loadsDeclared ? 'Every question answered' : 'Not all — unanswered count as none'],
+          ['Loads declared', loadsDeclaredWords(Boolean(f.loadsDeclared))],
           ['Estimate firm', f.firm ? 'Yes' : 'No — amber at best'],
           ...(f.phaseFit && f.phaseFit !== 'fits' ? [['Phases for the charger', f.phaseFit === 'needs-three-phase' ? 'Needs three phase; supply is single' : 'Needs three phase; supply not known'] as [string, ReactNode]] : []),
         ]}
@@ -133,7 +135,7 @@ function CableRun({ f }: { f: Figures }) {
           ['Reference method', typeof f.method === 'string' ? (f.method === 'D' ? 'D (in the ground)' : 'C (clipped direct)') : '—'],
           ['Correction factor', num(f.factor) === null ? '—' : formatNumber(num(f.factor)!, 2)],
           ['Run length', metres(f.lengthMetres)],
-          ['Route', typeof f.route === 'string' ? routeWords[f.route] ?? f.route : 'Not given'],
+          ['Route', typeof f.route === 'string' ? staffAnswer('charger.route', f.route, true) : 'Not given'],
           ['Voltage-drop limit', limit === null ? '—' : `${formatNumber(limit)}% − ${formatNumber(upstream)}% upstream = ${formatNumber(num(f.limitVolts) ?? 0, 2)} V`],
           ['Smallest size that passes', num(f.recommendedCsaMm2) === null ? (sizes.length ? 'None of the sizes' : '—') : `${f.recommendedCsaMm2} mm²`],
           ['Long run over', metres(f.longRunThresholdMetres)],
@@ -161,7 +163,7 @@ function CableRun({ f }: { f: Figures }) {
       )}
       {ref70?.sizes && ref70.sizes.length > 0 && (
         <details className="mt-2 text-sm">
-          <summary className="cursor-pointer text-ground-700">70 °C thermoplastic drop comparison (from memory, not used to recommend)</summary>
+          <summary className="cursor-pointer text-ground-700">70 °C thermoplastic drop comparison (not used to recommend; confirm against the printed table)</summary>
           <MiniTable
             caption={ref70.table ?? 'Table 4D4B'}
             head={['Size', 'mV/A/m', 'Drop', 'Drop %']}
@@ -208,17 +210,7 @@ function Earthing({ f }: { f: Figures }) {
   );
 }
 
-const routeWords: Record<string, string> = {
-  'through-wall': 'Straight through the wall',
-  'along-wall': 'Along the outside wall',
-  'through-house': 'Through the house',
-  buried: 'Buried',
-};
 
-const networkRouteWords: Record<string, string> = {
-  'notify-after': 'Connect and notify',
-  'apply-before': 'Apply to connect',
-};
 
 function NetworkOperator({ f }: { f: Figures }) {
   const reasons = (Array.isArray(f.reasons) ? f.reasons : []) as { code: string; text: string; certain?: boolean }[];
@@ -226,13 +218,13 @@ function NetworkOperator({ f }: { f: Figures }) {
     <>
       <FigureList
         rows={[
-          ['Route', typeof f.route === 'string' ? networkRouteWords[f.route] ?? f.route : '—'],
+          ['Route', networkRouteWord(f.route)],
           ['Settled', f.settled ? 'Yes' : 'Not yet — answers missing'],
           ['Assessed maximum demand', `${amps(f.assessedDemandAmps)}${f.supplyPhases === 3 ? ' per phase' : ''}`],
-          ['Notify-only limit', `${amps(f.demandLimitAmps)}${f.supplyPhases === 3 ? ' per phase' : ''}`],
+          ['Connect & Notify limit', `${amps(f.demandLimitAmps)}${f.supplyPhases === 3 ? ' per phase' : ''}`],
           ['Main fuse (cut-out)', f.fuseAmps === null ? 'Not known' : amps(f.fuseAmps)],
-          ['Lead time allowed', `${num(f.leadTimeDays) ?? 0} days`],
-          ['Notify within', `${num(f.notifyWithinDays) ?? '—'} days of connection`],
+          ['Lead time allowed', countOf(num(f.leadTimeDays) ?? 0, 'day')],
+          ['Notify within', num(f.notifyWithinDays) === null ? '—' : `${countOf(num(f.notifyWithinDays)!, 'day')} of connection`],
           ['Distribution region', typeof f.region === 'string' ? f.region : 'Not known (no valid MPAN)'],
         ]}
       />
@@ -247,8 +239,6 @@ function NetworkOperator({ f }: { f: Figures }) {
 }
 
 type Verdict = { bayIndex: number; way: string; planMetres: number; requiredMetres: number; reaches: boolean; shortByMetres: number };
-const cableSourceWords: Record<string, string> = { tether: 'tethered, as given', 'tether-assumed': 'tethered, usual length assumed', 'customer-cable-assumed': 'customer’s own cable, assumed' };
-const wayWords: Record<string, string> = { 'nose-in': 'Nose in', 'reverse-in': 'Reversed in' };
 
 function CableReach({ f }: { f: Figures }) {
   const verdicts = (Array.isArray(f.verdicts) ? f.verdicts : []) as Verdict[];
@@ -257,9 +247,9 @@ function CableReach({ f }: { f: Figures }) {
     <>
       <FigureList
         rows={[
-          ['Cable', `${metres(f.cableMetres)} (${cableSourceWords[String(f.cableSource)] ?? String(f.cableSource ?? '—')})`],
-          ['Charge port', typeof f.port === 'string' ? f.port.replace('-', ' ') : '—'],
-          ['Parking habit', typeof f.habit === 'string' ? f.habit.replace('-', ' ') : '—'],
+          ['Cable', `${metres(f.cableMetres)} (${cableSourceWords[String(f.cableSource)] ?? '—'})`],
+          ['Charge port', portWord(f.port)],
+          ['Usually parked', typeof f.habit === 'string' ? staffAnswer('parking.habit', f.habit, true) : '—'],
           ['Car size', car?.lengthM ? `${formatNumber(car.lengthM)} × ${formatNumber(car.widthM ?? 0)} m` : '—'],
           ['Slack allowed', metres(f.slackMetres)],
           ...(f.otherBaysOccupied === true || f.otherBaysOccupied === false
@@ -273,7 +263,7 @@ function CableReach({ f }: { f: Figures }) {
           head={['Bay', 'Parked', 'Plan distance', 'Cable needed', 'Result']}
           rows={verdicts.map((v) => [
             `Bay ${v.bayIndex + 1}`,
-            wayWords[v.way] ?? v.way,
+            wayWord(v.way),
             metres(v.planMetres),
             metres(v.requiredMetres),
             <PassWord ok={v.reaches} yes="Reaches" no={`Short by ${formatNumber(v.shortByMetres)} m`} />,
@@ -354,15 +344,16 @@ function valueWords(key: string, v: unknown): string {
   if (typeof v === 'boolean') return v ? 'Yes' : 'No';
   if (typeof v === 'number') {
     if (/Ohms$/.test(key)) return `${formatNumber(v)} Ω`;
-    if (/Days$/.test(key) || key === 'slackDays') return `${formatNumber(v, 0)} days`;
+    if (/Days$/.test(key) || key === 'slackDays') return countOf(Math.round(v), 'day');
     if (/Metres$/.test(key)) return `${formatNumber(v)} m`;
     if (/Amps$/.test(key)) return `${formatNumber(v)} A`;
     return formatNumber(v);
   }
   if (typeof v === 'string') {
     if (/^\d{4}-\d{2}-\d{2}$/.test(v)) return formatDay(v);
-    if (key === 'earthing') return { pme: 'PME (TN-C-S)', tns: 'TN-S', tt: 'TT', unknown: 'Not known' }[v] ?? v;
-    if (key === 'networkRoute') return networkRouteWords[v] ?? v;
+    if (key === 'earthing') return staffAnswer('supply.earthing', v, true) ?? v;
+    if (key === 'kind') return staffAnswer('parking.kind', v, true) ?? v;
+    if (key === 'networkRoute') return networkRouteWord(v);
     // Codes such as "yes" or "unknown" read better as words with a capital.
     return /^[a-z][a-z-]*$/.test(v) ? `${v.charAt(0).toUpperCase()}${v.slice(1).replace(/-/g, ' ')}` : v;
   }

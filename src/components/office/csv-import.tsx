@@ -16,9 +16,9 @@ const MAX_ROWS = 500;
 // Invented people at example.com addresses, with phone numbers from Ofcom's ranges set aside for drama.
 export const exampleCsv = [
   inviteCsvColumns.join(','),
-  'Alys Penhallow,alys.penhallow@example.com,0113 496 0101,12 Wren Gardens,,Quillbury,AB12 3DE,Tethered unit wanted',
-  'Bram Okonedo,bram.okonedo@example.com,,Flat 4 Larkspur House,Station Road,Quillbury,AB13 1GH,',
-  'Corinne Ashby,corinne.ashby@example.com,020 7946 0123,The Granary,Mill Lane,Quillbury,AB12 7EF,Car due next month',
+  'Alys Penhallow,alys.penhallow@example.com,0113 496 0101,12 Wren Gardens,,Quillbury,YY1 4DS,Tethered unit wanted',
+  'Bram Okonedo,bram.okonedo@example.com,,Flat 4 Larkspur House,Station Road,Quillbury,YY2 5HT,',
+  'Corinne Ashby,corinne.ashby@example.com,020 7946 0123,The Granary,Mill Lane,Quillbury,YY1 8EF,Car due next month',
 ].join('\r\n');
 
 const fieldWords: Record<string, string> = {

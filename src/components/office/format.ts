@@ -1,4 +1,5 @@
 // Dates and figures as office staff read them: short, British, and never "undefined".
+import { countOf, plural as pluralWord } from '@/lib/grammar';
 
 const day = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'Europe/London' });
 const dayTime = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit', timeZone: 'Europe/London' });
@@ -35,7 +36,7 @@ export function relativeDays(n: number): string {
   if (n === 0) return 'today';
   if (n === -1) return 'yesterday';
   if (n === 1) return 'tomorrow';
-  return n < 0 ? `${-n} days ago` : `in ${n} days`;
+  return n < 0 ? `${countOf(-n, 'day')} ago` : `in ${countOf(n, 'day')}`;
 }
 
 /** Whole days since an ISO timestamp, for "last activity". */
@@ -48,7 +49,7 @@ export function formatNumber(n: number, decimals = 2): string {
   return Number(n.toFixed(decimals)).toLocaleString('en-GB', { maximumFractionDigits: decimals });
 }
 
-/** "3 customers" / "1 customer". */
+/** "3 customers" / "1 customer", by Intl.PluralRules (src/lib/grammar.ts), with a grouped count. */
 export function plural(n: number, one: string, many = `${one}s`): string {
-  return `${n.toLocaleString('en-GB')} ${n === 1 ? one : many}`;
+  return `${n.toLocaleString('en-GB')} ${pluralWord(n, one, many)}`;
 }

@@ -1,5 +1,6 @@
 // The office's review queue: a dense, server-side table of every case (TanStack Table in
 // manual mode: the API filters, sorts and pages), with its view kept in the URL.
+import { gapWords } from '@/lib/vocabulary/pack';
 import { useCallback, useEffect, useMemo, useRef, useState } from 'react';
 import {
   createColumnHelper,
@@ -10,7 +11,7 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import type { QueueItem, QueueSortKey } from '../../lib/schemas/queue';
-import { ChevronDownIcon, ChevronLeftIcon, ChevronRightIcon, ChevronUpIcon, InfoIcon, SendIcon, SpinnerIcon, StopIcon } from '../icons';
+import { CameraIcon, ChevronDownIcon, ChevronLeftIcon, ChevronRightIcon, ChevronUpIcon, InfoIcon, SendIcon, SpinnerIcon, StopIcon } from '../icons';
 import { apiCall, type ApiError } from './api';
 import { daysSince, daysUntil, formatDay, plural, relativeDays } from './format';
 import { LightBadge } from '../readiness/light-badge';
@@ -59,6 +60,12 @@ function CustomerCell({ r }: { r: QueueItem }) {
       {r.changedSinceReadyAt && (
         <div className="mt-1 inline-block rounded bg-clay-100 px-1.5 py-0.5 text-xs font-semibold text-clay-800" data-testid="changed-since-ready">
           Changed since ready
+        </div>
+      )}
+      {r.flaggedPhotos > 0 && (
+        <div className="mt-1 inline-flex items-center gap-1 rounded bg-attention-soft px-1.5 py-0.5 text-xs font-semibold text-attention" data-testid="photos-flagged">
+          <CameraIcon className="h-3.5 w-3.5" />
+          {r.flaggedPhotos === 1 ? '1 photo flagged' : `${r.flaggedPhotos} photos flagged`}
         </div>
       )}
     </div>
@@ -216,7 +223,7 @@ export default function QueueApp({ initialSearch, surveyors }: Props) {
         ),
       }),
       column.accessor('light', { id: 'light', header: 'Readiness', cell: ({ getValue }) => <LightBadge light={getValue()} /> }),
-      column.accessor('gapCount', { id: 'gaps', header: 'Open gaps', cell: ({ row }) => <GapsCell r={row.original} /> }),
+      column.accessor('gapCount', { id: 'gaps', header: 'Open checks', cell: ({ row }) => <GapsCell r={row.original} /> }),
       column.accessor('stage', { id: 'stage', header: 'Stage', cell: ({ getValue }) => <StagePill stage={getValue()} /> }),
       column.accessor('daysSinceInvite', {
         id: 'invited',
@@ -431,7 +438,7 @@ export default function QueueApp({ initialSearch, surveyors }: Props) {
                   }}
                 >
                   <option value="light:asc">Worst readiness first</option>
-                  <option value="gaps:desc">Most gaps first</option>
+                  <option value="gaps:desc">Most open checks first</option>
                   <option value="delivery:asc">Car due soonest</option>
                   <option value="invited:asc">Invited longest ago</option>
                   <option value="activity:desc">Latest activity</option>
@@ -460,7 +467,7 @@ export default function QueueApp({ initialSearch, surveyors }: Props) {
                             <p className="mt-1 text-ground-800">{[addressOf(r), r.postcode].filter(Boolean).join(', ') || 'No address yet'}</p>
                             <div className="mt-2 flex flex-wrap items-center gap-2">
                               <StagePill stage={r.stage} />
-                              <span className="text-ground-700">{r.gapCount === 0 ? 'No gaps' : `${plural(r.gapCount, 'gap')}: ${r.gaps.map(shortCheckName).join(', ')}`}</span>
+                              <span className="text-ground-700">{r.gapCount === 0 ? 'No open checks' : `${gapWords.staffOpen(r.gapCount)}: ${r.gaps.map(shortCheckName).join(', ')}`}</span>
                             </div>
                             <dl className="mt-2 grid grid-cols-2 gap-x-3 gap-y-1 text-xs text-ground-700">
                               <div><dt className="inline font-semibold">Invited </dt><dd className="inline">{plural(r.daysSinceInvite, 'day')} ago</dd></div>

@@ -1,8 +1,9 @@
-// The queue's filter bar: search, readiness, stage, surveyor and "car due within".
+// The queue's filter bar: search, readiness, stage, surveyor, "car due within" and flagged photos.
+import { countOf } from '@/lib/grammar';
 import { useEffect, useRef, type ReactNode } from 'react';
 import { lights } from '../../lib/schemas/queue';
 import { stageLabels, stages, type StageId } from '../../lib/stages';
-import { ChevronDownIcon } from '../icons';
+import { CameraIcon, ChevronDownIcon } from '../icons';
 import { LightIcon } from '../readiness/light-badge';
 import { staffLightWords as lightWords } from '../../lib/readiness/lights';
 import { toggle, type Light, type QueueView } from './queue-state';
@@ -61,9 +62,9 @@ function MultiPicker({ label, summary, children, testId }: { label: string; summ
 }
 
 export function QueueFilters({ view, searchText, onSearchText, onChange, surveyors }: Props) {
-  const stageSummary = view.stage.length === 0 ? 'Any stage' : view.stage.length === 1 ? stageLabels[view.stage[0]!] : `${view.stage.length} stages`;
+  const stageSummary = view.stage.length === 0 ? 'Any stage' : view.stage.length === 1 ? stageLabels[view.stage[0]!] : countOf(view.stage.length, 'stage');
   return (
-    <div className="grid grid-cols-2 gap-3 rounded-lg border border-ground-100 bg-white p-3 shadow-sm md:grid-cols-[minmax(14rem,2fr)_auto_minmax(9rem,1fr)_minmax(9rem,1fr)_minmax(9rem,1fr)] md:items-end">
+    <div className="grid grid-cols-2 gap-3 rounded-lg border border-ground-100 bg-white p-3 shadow-sm md:grid-cols-[minmax(14rem,2fr)_auto_minmax(9rem,1fr)_minmax(9rem,1fr)_minmax(9rem,1fr)_auto] md:items-end">
       <div className="col-span-2 md:col-span-1">
         <label htmlFor="queue-search" className="mb-1 block text-sm font-semibold text-ground-900">Search</label>
         <input
@@ -139,6 +140,17 @@ export function QueueFilters({ view, searchText, onSearchText, onChange, surveyo
           )}
         </select>
       </div>
+      <label className="flex min-h-[40px] cursor-pointer items-center gap-2 rounded-md border border-ground-300 bg-white px-2.5 text-sm font-semibold text-ground-800 has-[:checked]:border-attention has-[:checked]:bg-attention-soft has-[:checked]:text-attention">
+        <input
+          type="checkbox"
+          className="h-4 w-4 accent-ground-700"
+          checked={view.photosFlagged}
+          onChange={(e) => onChange({ photosFlagged: e.target.checked, page: 1 })}
+          data-testid="filter-photos-flagged"
+        />
+        <CameraIcon className="h-4 w-4" />
+        Photos flagged
+      </label>
     </div>
   );
 }

@@ -12,13 +12,15 @@ export type QueueView = {
   surveyor: string;
   q: string;
   deliveryWithin: number | null;
+  /** Only cases with a photo the check at upload flagged, still waiting for review. */
+  photosFlagged: boolean;
   sort: QueueSortKey;
   dir: 'asc' | 'desc';
   page: number;
   pageSize: number;
 };
 
-export const defaultView: QueueView = { light: [], stage: [], surveyor: '', q: '', deliveryWithin: null, sort: 'light', dir: 'asc', page: 1, pageSize: 50 };
+export const defaultView: QueueView = { light: [], stage: [], surveyor: '', q: '', deliveryWithin: null, photosFlagged: false, sort: 'light', dir: 'asc', page: 1, pageSize: 50 };
 
 /**
  * The view a query string describes; an invalid link falls back to the defaults and says so.
@@ -37,6 +39,7 @@ function fromQuery(q: QueueQuery): QueueView {
     surveyor: q.surveyor ?? '',
     q: q.q ?? '',
     deliveryWithin: q.deliveryWithin ?? null,
+    photosFlagged: q.photos === 'flagged',
     sort: q.sort,
     dir: q.dir,
     page: q.page,
@@ -55,6 +58,7 @@ export function searchFromView(view: QueueView, { paging = true } = {}): string 
   if (view.surveyor) p.set('surveyor', view.surveyor);
   if (view.q.trim()) p.set('q', view.q.trim());
   if (view.deliveryWithin !== null) p.set('deliveryWithin', String(view.deliveryWithin));
+  if (view.photosFlagged) p.set('photos', 'flagged');
   if (view.sort !== defaultView.sort || view.dir !== defaultView.dir) {
     p.set('sort', view.sort);
     p.set('dir', view.dir);
@@ -66,7 +70,7 @@ export function searchFromView(view: QueueView, { paging = true } = {}): string 
 
 /** Whether any filter (not sort or paging) narrows the view. */
 export function hasFilters(view: QueueView): boolean {
-  return view.light.length > 0 || view.stage.length > 0 || view.surveyor !== '' || view.q.trim() !== '' || view.deliveryWithin !== null;
+  return view.light.length > 0 || view.stage.length > 0 || view.surveyor !== '' || view.q.trim() !== '' || view.deliveryWithin !== null || view.photosFlagged;
 }
 
 /** The same sort and page size with every filter cleared. */

@@ -33,6 +33,22 @@ const groups: { title: string; intro: string; keys: ReadinessSettingKey[] }[] = 
     keys: ['nearSoftGroundMetres', 'protectiveDeviceAmps', 'terminalTemperatureC', 'voltageDropLimitPercent', 'upstreamDropPercent', 'longRunMetres'],
   },
   { title: 'Cable reach', intro: 'Assumptions when measuring the charging cable on the customer’s driveway plan.', keys: ['cableSlackMetres', 'defaultTetherMetres', 'defaultCustomerCableMetres', 'portInsetMetres'] },
+  {
+    title: 'Photo checks at upload',
+    intro: 'When a photo is flagged to the customer (who may take it again or keep it) and to the office. The check advises; the office decides.',
+    keys: [
+      'photoSharpnessMin',
+      'photoDarkMeanMax',
+      'photoShadowClipPercentMax',
+      'photoBrightMeanMin',
+      'photoHighlightClipPercentMax',
+      'photoDigitsMinLongEdgePx',
+      'photoDigitsMinShortEdgePx',
+      'photoSceneMinLongEdgePx',
+      'photoSceneMinShortEdgePx',
+      'photoDuplicateMaxBits',
+    ],
+  },
 ];
 
 const reminderFields: { key: keyof ReminderSettings; label: string; meaning: string; unit: string }[] = [

@@ -5,6 +5,7 @@ import type { Checklist } from '../../lib/schemas/checklist';
 import type { ChecklistAnswers } from '../../lib/readiness/types';
 import { requiredUploadKinds, uploadKindStatus } from '../../lib/readiness';
 import { formatBytes, uploadKindInfo, uploadKinds, type UploadItem, type UploadKind, type UploadStatus } from '../../lib/schemas/uploads';
+import { photoProblemStaffWords, rejectionWords } from '../../lib/photo-quality';
 import { CheckIcon, CircleIcon, InfoIcon, SpinnerIcon, StopIcon, WarningIcon } from '../icons';
 import { apiCall } from './api';
 import { formatDayTime } from './format';
@@ -70,6 +71,27 @@ function Lightbox({ item, onClose }: { item: UploadItem | null; onClose(): void 
   );
 }
 
+/** What the photo check at upload found, in staff words with the figure and the setting it crossed. */
+function PhotoFlags({ item }: { item: UploadItem }) {
+  const problems = item.quality?.problems ?? [];
+  if (problems.length === 0) return null;
+  return (
+    <div className="mt-1 rounded border border-attention/30 bg-attention-soft px-2 py-1 text-xs text-ink" data-testid="photo-flags">
+      <p className="flex items-center gap-1 font-semibold text-attention">
+        <WarningIcon className="h-3.5 w-3.5" />
+        Photo check: {problems.map((p) => photoProblemStaffWords[p.code]).join(', ')}
+      </p>
+      <ul className="mt-0.5 list-none">
+        {problems.map((p) => (
+          <li key={p.code} data-code={p.code}>
+            {photoProblemStaffWords[p.code]}: {p.measured} against {p.threshold} ({p.measure})
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
 function RejectForm({ item, onDone, onCancel }: { item: UploadItem; onDone(updated: UploadItem): void; onCancel(): void }) {
   const id = useId();
   const [reason, setReason] = useState('');
@@ -102,6 +124,15 @@ function RejectForm({ item, onDone, onCancel }: { item: UploadItem; onDone(updat
         onChange={(e) => setReason(e.target.value)}
         placeholder="For example: the fuse rating is blurred — please take it again closer, in good light."
       />
+      {(item.quality?.problems.length ?? 0) > 0 && (
+        <button
+          type="button"
+          className="mt-1 text-xs font-semibold text-ground-700 underline decoration-ground-300 underline-offset-2"
+          onClick={() => setReason(rejectionWords(item.kind, item.quality!.problems))}
+        >
+          Use the photo check’s words
+        </button>
+      )}
       <p id={`${id}-help`} className="field-help text-xs">
         They are e-mailed this, with what a good one shows: “{uploadKindInfo[item.kind].hint}”
       </p>
@@ -150,6 +181,7 @@ function UploadCard({ item, onOpen, onReviewed }: { item: UploadItem; onOpen(): 
             {formatBytes(item.sizeBytes)}
             {item.width && item.height ? ` · ${item.width}×${item.height}` : ''} · sent {formatDayTime(item.createdAt)}
           </p>
+          <PhotoFlags item={item} />
           {item.status === 'rejected' && item.reason && <p className="mt-1 text-xs text-blocked">Reason given: “{item.reason}”</p>}
           <div className="mt-2 flex flex-wrap gap-2">
             {item.status !== 'accepted' && (
@@ -202,6 +234,7 @@ export function UploadReview({ caseId, checklist, refreshKey, onChanged }: Props
   const shown = uploadKinds.filter((k) => required.has(k) || items?.some((i) => i.kind === k));
   const summaries = (items ?? []).map((i) => ({ kind: i.kind, status: i.status, reason: i.reason }));
   const waiting = (items ?? []).filter((i) => i.status === 'waiting').length;
+  const flagged = (items ?? []).filter((i) => i.status === 'waiting' && i.quality && !i.quality.ok).length;
 
   function reviewed(updated: UploadItem) {
     setItems((list) => list?.map((i) => (i.id === updated.id ? updated : i)) ?? null);
@@ -212,7 +245,7 @@ export function UploadReview({ caseId, checklist, refreshKey, onChanged }: Props
     <section aria-labelledby="uploads-heading" className="card" id="uploads">
       <div className="flex flex-wrap items-baseline justify-between gap-2">
         <h2 id="uploads-heading" className="text-lg font-bold text-ground-900">Photos and documents</h2>
-        {items && <p className="text-sm text-ground-700">{items.length} {items.length === 1 ? 'file' : 'files'}{waiting ? `, ${waiting} waiting for review` : ''}</p>}
+        {items && <p className="text-sm text-ground-700">{items.length} {items.length === 1 ? 'file' : 'files'}{waiting ? `, ${waiting} waiting for review` : ''}{flagged ? `, ${flagged} flagged by the photo check` : ''}</p>}
       </div>
       {error && <p className="field-error" role="alert">{error}</p>}
       {!items && !error && <p className="mt-2 flex items-center gap-2 text-sm text-ground-700"><SpinnerIcon className="h-4 w-4" />Loading files…</p>}

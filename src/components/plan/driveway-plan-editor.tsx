@@ -6,7 +6,7 @@ import type { DrivewayPlan as PlanValue } from '../../lib/readiness/plan';
 import type { ChargePort, ChargerPreference, ParkingHabit } from '../../lib/readiness/types';
 import { DrivewayPlan, type PlanSettings } from './driveway-plan';
 import { retryDelayMs, savePlan, type PlanCaseView } from './plan-save';
-import { defaultPlan, readSavedPlan } from './plan-view';
+import { defaultPlan, readSavedPlan } from '@/lib/plan/plan-view';
 
 export type DrivewayPlanEditorProps = {
   caseId: string;
@@ -18,6 +18,8 @@ export type DrivewayPlanEditorProps = {
   tetherMetres?: number | null;
   preference?: ChargerPreference | null;
   habit?: ParkingHabit | null;
+  /** The parking step's number of cars. */
+  cars?: number | null;
   settings?: Partial<PlanSettings>;
   /** False once the case can no longer be changed: the plan is shown, not edited. */
   editable?: boolean;
@@ -35,7 +37,7 @@ type Status =
   | { kind: 'signed-out' }
   | { kind: 'locked'; message: string };
 
-type Answers = Pick<DrivewayPlanEditorProps, 'chargePort' | 'tetherMetres' | 'preference' | 'habit'>;
+type Answers = Pick<DrivewayPlanEditorProps, 'chargePort' | 'tetherMetres' | 'preference' | 'habit' | 'cars'>;
 
 // A save is worth retrying at once after a conflict, but not forever if something keeps saving.
 const MAX_QUICK_CONFLICTS = 3;
@@ -47,6 +49,7 @@ function answersOf(view: PlanCaseView): Answers {
     tetherMetres: charger?.tetherMetres ?? null,
     preference: charger?.preference ?? null,
     habit: parking?.habit ?? null,
+    cars: parking?.cars ?? null,
   };
 }
 

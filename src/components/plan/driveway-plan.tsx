@@ -4,13 +4,13 @@
 import { useId, useMemo, useState } from 'react';
 import { InfoIcon } from '../icons';
 import { cableForReach } from '../../lib/readiness/checks/cable-reach';
-import { reachVerdict, type DrivewayPlan as PlanValue } from '../../lib/readiness/plan';
+import { otherBaysOccupied, reachVerdict, type DrivewayPlan as PlanValue } from '../../lib/readiness/plan';
 import { defaultReadinessSettings, type ReadinessSettings } from '../../lib/readiness/settings';
 import type { ChargePort, ChargerPreference, ParkingHabit, ParkingWay } from '../../lib/readiness/types';
 import { PlanControls } from './plan-controls';
 import { PlanDrawing } from './plan-drawing';
-import { bayName, defaultPlan, planToView, viewToPlan, type Movable, type PlanView } from './plan-view';
-import { wayLabels } from './plan-words';
+import { bayName, defaultPlan, planToView, viewToPlan, type Movable, type PlanView } from '@/lib/plan/plan-view';
+import { wayLabels } from '@/lib/vocabulary/plan';
 import { ReachSummary } from './reach-summary';
 
 /** The settings the plan measures with; the rest of the readiness settings do not matter here. */
@@ -26,6 +26,8 @@ export type DrivewayPlanProps = {
   tetherMetres?: number | null;
   preference?: ChargerPreference | null;
   habit?: ParkingHabit | null;
+  /** How many cars the household parks (the parking step's answer): one car leaves the other bays empty. */
+  cars?: number | null;
   /** The office's readiness settings; defaults when not given. */
   settings?: Partial<PlanSettings>;
   readOnly?: boolean;
@@ -38,7 +40,7 @@ export type DrivewayPlanProps = {
  *
  * @example <DrivewayPlan value={plan} onChange={setPlan} chargePort="front-left" preference="tethered" tetherMetres={5} habit="varies" />
  */
-export function DrivewayPlan({ value, onChange, chargePort = null, tetherMetres = null, preference = null, habit = null, settings, readOnly, layout = 'split' }: DrivewayPlanProps) {
+export function DrivewayPlan({ value, onChange, chargePort = null, tetherMetres = null, preference = null, habit = null, cars = null, settings, readOnly, layout = 'split' }: DrivewayPlanProps) {
   const titleId = useId();
   const starting = useMemo(defaultPlan, []);
   const plan = value ?? starting;
@@ -50,7 +52,12 @@ export function DrivewayPlan({ value, onChange, chargePort = null, tetherMetres 
   const cable = cableForReach({ preference, tetherMetres }, measured);
   const port = plan.chargePort ?? chargePort ?? null;
   const verdicts = port
-    ? reachVerdict(plan, cable.metres, 'varies', { port, slackMetres: measured.cableSlackMetres, portInsetMetres: measured.portInsetMetres })
+    ? reachVerdict(plan, cable.metres, 'varies', {
+        port,
+        slackMetres: measured.cableSlackMetres,
+        portInsetMetres: measured.portInsetMetres,
+        otherBaysOccupied: otherBaysOccupied(cars),
+      })
     : [];
   const carBays = carBaysOf(view);
   const change = (next: PlanView) => onChange(viewToPlan(next));
@@ -165,7 +172,7 @@ function Legend() {
         <svg viewBox="0 0 16 16" className="h-4 w-4" aria-hidden="true">
           <circle cx="8" cy="8" r="5.5" className="fill-ink stroke-white" strokeWidth="2" />
         </svg>
-        Charge port on the car
+        Charging socket on the car
       </li>
       <li className="flex items-center gap-1.5">
         <svg viewBox="0 0 28 8" className="h-2 w-7" aria-hidden="true">

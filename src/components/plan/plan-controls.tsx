@@ -24,8 +24,9 @@ import {
   type Movable,
   type PlanView,
   type ViewBay,
-} from './plan-view';
-import { sizeClassLabels } from './plan-words';
+} from '@/lib/plan/plan-view';
+import { optionHint, optionWords } from '@/lib/vocabulary/fields';
+import { sizeClassLabels } from '@/lib/vocabulary/plan';
 import { PortPicker } from './port-picker';
 
 type Props = {
@@ -200,8 +201,8 @@ function BayControls({ view, bay, index, onChange, active, onSelect, readOnly }:
       <ChoiceGroup<BayKind>
         legend="What kind of space is it?"
         options={[
-          { value: 'driveway', label: 'Driveway' },
-          { value: 'garage', label: 'Garage' },
+          { value: 'driveway', label: optionWords('charger.plan.bays.kind', 'driveway', 'customer')! },
+          { value: 'garage', label: optionWords('charger.plan.bays.kind', 'garage', 'customer')! },
         ]}
         value={bay.kind}
         onChange={(kind) => set({ kind })}
@@ -210,8 +211,8 @@ function BayControls({ view, bay, index, onChange, active, onSelect, readOnly }:
       <ChoiceGroup<'facing' | 'along'>
         legend="How does the car sit?"
         options={[
-          { value: 'facing', label: 'End on to the house', hint: 'front or back to the wall' },
-          { value: 'along', label: 'Along the house', hint: 'side to the wall' },
+          { value: 'facing', label: optionWords('charger.plan.bays.angle', 0, 'customer')!, hint: optionHint('charger.plan.bays.angle', 0) },
+          { value: 'along', label: optionWords('charger.plan.bays.angle', 90, 'customer')!, hint: optionHint('charger.plan.bays.angle', 90) },
         ]}
         value={bay.along ? 'along' : 'facing'}
         onChange={(choice) => set({ along: choice === 'along' })}
@@ -222,8 +223,9 @@ function BayControls({ view, bay, index, onChange, active, onSelect, readOnly }:
           legend="Which end do you drive in at?"
           help="As you face the house from the street."
           options={[
-            { value: 'left', label: 'From the left' },
-            { value: 'right', label: 'From the right' },
+            // The street view's left end is the saved plan's 'right' entry (src/lib/plan/plan-view.ts).
+            { value: 'left', label: optionWords('charger.plan.bays.entry', 'right', 'customer')! },
+            { value: 'right', label: optionWords('charger.plan.bays.entry', 'left', 'customer')! },
           ]}
           value={bay.from}
           onChange={(from) => set({ from })}

@@ -5,8 +5,8 @@ import { useId, useRef, useState, type KeyboardEvent, type PointerEvent } from '
 import { carFootprint, type DrivewayPlan, type ReachVerdict } from '../../lib/readiness/plan';
 import type { ParkingWay } from '../../lib/readiness/types';
 import { formatNumber, roundTo } from '../../lib/readiness/units';
-import { carShape, frameFor, HOUSE_DEPTH, rectToScreen, scaleBarMetres, svgPoints, toScreen, type Frame } from './drawing-geometry';
-import { arrowStep, bayName, bayRect, moveChargePoint, nudge, updateBay, type Movable, type PlanView, type ViewRect } from './plan-view';
+import { carShape, frameFor, HOUSE_DEPTH, rectToScreen, scaleBarMetres, svgPoints, toScreen, type Frame } from '@/lib/plan/drawing-geometry';
+import { arrowStep, bayName, bayRect, moveChargePoint, nudge, updateBay, type Movable, type PlanView, type ViewRect } from '@/lib/plan/plan-view';
 
 type Props = {
   plan: DrivewayPlan;

@@ -10,7 +10,7 @@ export type PlanCaseView = {
   checklist: {
     vehicle?: { chargePort?: ChargePort | null } | null;
     charger?: { plan?: unknown; preference?: ChargerPreference | null; tetherMetres?: number | null } | null;
-    parking?: { habit?: ParkingHabit | null } | null;
+    parking?: { habit?: ParkingHabit | null; cars?: number | null } | null;
   };
 };
 

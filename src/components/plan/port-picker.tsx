@@ -3,7 +3,7 @@
 import { useId } from 'react';
 import { chargePortValues } from '../../lib/readiness/plan';
 import type { ChargePort } from '../../lib/readiness/types';
-import { portLabels } from './plan-words';
+import { portLabels } from '@/lib/vocabulary/plan';
 
 type Props = {
   value: ChargePort | null;
@@ -45,7 +45,7 @@ export function PortPicker({ value, fromVehicle, onChange, disabled }: Props) {
   const helpId = `${name}-help`;
   return (
     <fieldset disabled={disabled} aria-describedby={helpId} data-testid="plan-port-picker">
-      <legend className="field-label">Where is the charge port on your car?</legend>
+      <legend className="field-label">Where is the charging socket on the car?</legend>
       <p id={helpId} className="field-help -mt-0.5 mb-2">
         Seen from above with the nose at the top; left and right as you sit in the driver’s seat.
         {fromVehicle && value ? ' We’ve started from your answer in the vehicle step.' : ''}

@@ -5,7 +5,7 @@ import type { CableSource } from '../../lib/readiness/checks/cable-reach';
 import type { ReachVerdict } from '../../lib/readiness/plan';
 import type { ParkingHabit } from '../../lib/readiness/types';
 import { formatNumber } from '../../lib/readiness/units';
-import { cableSentence, verdictDetail, verdictSentence, wayLabels } from './plan-words';
+import { cableSentence, verdictDetail, verdictSentence, wayLabels } from '@/lib/vocabulary/plan';
 
 type Props = {
   verdicts: readonly ReachVerdict[];
@@ -36,7 +36,7 @@ export function ReachSummary({ verdicts, cable, habit, slackMetres, bayNames, po
         {!portKnown ? (
           <p className="flex gap-2 rounded-md border border-ground-200 bg-ground-50 p-3 text-ground-800">
             <InfoIcon className="mt-0.5 h-5 w-5 text-ground-700" />
-            <span>Pick where the charge port is on your car (below) and we’ll show whether the cable reaches.</span>
+            <span>Pick where the charging socket is on the car (below) and we’ll show whether the cable reaches.</span>
           </p>
         ) : (
           <ul className="grid gap-2" data-testid="plan-verdicts">

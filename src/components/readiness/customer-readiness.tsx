@@ -1,12 +1,19 @@
 // The customer's view of the readiness checks, in plain words: what is clear, what needs
 // attention and what is holding the job up — fetched fresh whenever the answers change.
 import { useEffect, useState } from 'react';
-import type { CheckResult, Light } from '../../lib/readiness/types';
+import type { CheckId, Light } from '@/lib/readiness/types';
+import { lightRank } from '@/lib/readiness/lights';
+import type { CustomerAction } from '@/lib/vocabulary/readiness';
 import { SpinnerIcon } from '../icons';
 import { LightBadge } from './light-badge';
-import { lightRank } from '../../lib/readiness/lights';
 
-type Readiness = { light: Light; gapCount: number; checks: CheckResult[] };
+/** A check as the server hands it to a customer: their own words and where they can act. */
+type CustomerCheck = { id: CheckId; light: Light; title: string; customerText: string; customerActions: CustomerAction[] };
+type Readiness = { light: Light; gapCount: number; checks: CustomerCheck[] };
+
+function actionHref(caseId: string, action: CustomerAction): string {
+  return action.place === 'photos' ? `/my/cases/${caseId}/photos` : `#step=${action.place}`;
+}
 
 const order = lightRank;
 
@@ -49,10 +56,12 @@ export default function CustomerReadiness({ caseId, version }: { caseId: string;
               <LightBadge light={c.light} audience="customer" />
             </div>
             <p className="mt-1 text-ground-800">{c.customerText}</p>
-            {c.light !== 'green' && c.actions.length > 0 && (
-              <ul className="mt-1 list-disc pl-5 text-sm text-ground-700">
-                {c.actions.map((a) => (
-                  <li key={a}>{a}</li>
+            {c.customerActions.length > 0 && (
+              <ul className="mt-1 list-disc pl-5 text-sm text-ground-700" data-testid={`check-${c.id}-actions`}>
+                {c.customerActions.map((a) => (
+                  <li key={a.text}>
+                    <a href={actionHref(caseId, a)}>{a.text}</a>
+                  </li>
                 ))}
               </ul>
             )}

@@ -5,10 +5,13 @@
 import { useEffect, useMemo, useRef, useState, type DragEvent } from 'react';
 import { uploadKindInfo, type UploadItem, type UploadKind } from '../../lib/schemas/uploads';
 import { uploadKindStatus } from '../../lib/readiness/upload-status';
-import { fetchUploads } from './api';
+import { slotCaution } from '../../lib/cautions';
+import { fetchUploads, removeUpload } from './api';
+import { goodPhotoAdvice } from '../../lib/photo-quality';
+import { GoodPhotoPicture } from './good-photo-picture';
 import { allowedFileTypes, limitsLine } from './upload-types';
 import type { SlotUppy } from './upload-widget';
-import { AcceptedIcon, ClockIcon, InfoIcon, MissingIcon, NotAcceptedIcon, StopIcon } from '../icons';
+import { AcceptedIcon, CameraIcon, ClockIcon, InfoIcon, MissingIcon, NotAcceptedIcon, StopIcon, WarningIcon } from '../icons';
 import { UploadedFile } from './uploaded-file';
 
 export type UploadSlotProps = {
@@ -88,7 +91,7 @@ function DropZone({ kind, photoOnly, touch, opening, onOpen }: { kind: UploadKin
                 onChange={(event) => picked(event.currentTarget)}
               />
             </label>
-            {touch && (
+            {touch && photoOnly && (
               <label className="btn-secondary cursor-pointer focus-within:ring-2 focus-within:ring-ground-600">
                 Take a photo
                 <input type="file" name="camera-photo" accept="image/*" capture="environment" className="sr-only" onChange={(event) => picked(event.currentTarget)} />
@@ -97,6 +100,59 @@ function DropZone({ kind, photoOnly, touch, opening, onOpen }: { kind: UploadKin
           </div>
         </>
       )}
+    </div>
+  );
+}
+
+/**
+ * What the photo check found on the photo just sent, in plain words, beside a drawing of what a
+ * good one looks like, with Take again (the new photo replaces this one once it has arrived) and Keep this one (the
+ * office decides). The check advises; nothing is refused.
+ */
+function PhotoCheck({ item, kind, touch, onRetake, onKeep }: { item: UploadItem; kind: UploadKind; touch: boolean; onRetake: (file: File) => void; onKeep: () => void }) {
+  const problems = item.quality?.problems ?? [];
+  const headingId = `photo-check-${item.id}`;
+  return (
+    <div className="rounded-lg border-2 border-attention/40 bg-attention-soft p-3" role="region" aria-labelledby={headingId} data-testid="photo-check">
+      <p id={headingId} className="flex items-center gap-2 font-bold text-ink">
+        <WarningIcon className="h-5 w-5 text-attention" />
+        This photo may be hard to read
+      </p>
+      <ul className="mt-1 list-disc pl-6 text-ink" data-testid="photo-problems">
+        {problems.map((p) => (
+          <li key={p.code} data-code={p.code}>{p.message}</li>
+        ))}
+      </ul>
+      <div className="mt-3 flex items-start gap-3">
+        <GoodPhotoPicture kind={kind} />
+        <p className="text-sm text-ink">
+          <span className="font-semibold">A good photo: </span>
+          {goodPhotoAdvice[kind]}
+        </p>
+      </div>
+      <div className="mt-3 flex flex-wrap gap-2">
+        <label className="btn-primary cursor-pointer focus-within:ring-2 focus-within:ring-ground-600">
+          <CameraIcon className="h-5 w-5" />
+          Take again
+          <input
+            type="file"
+            name="retake"
+            accept="image/*"
+            {...(touch ? { capture: 'environment' } : {})}
+            className="sr-only"
+            data-testid="retake-input"
+            onChange={(event) => {
+              const file = event.currentTarget.files?.[0];
+              event.currentTarget.value = '';
+              if (file) onRetake(file);
+            }}
+          />
+        </label>
+        <button type="button" className="btn-secondary" onClick={onKeep}>
+          Keep this one
+        </button>
+      </div>
+      <p className="mt-2 text-xs text-ground-800">Keeping it is fine: your installer will look at it and ask again only if they need to.</p>
     </div>
   );
 }
@@ -134,6 +190,10 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
   const [touch, setTouch] = useState(false);
   const [expanded, setExpanded] = useState(false);
   const [busy, setBusy] = useState(false);
+  // The photo just sent, while the customer decides on what the photo check found.
+  const [checking, setChecking] = useState<UploadItem | null>(null);
+  // The flagged photo a retake replaces: removed once the new one has arrived, never before.
+  const replaceRef = useRef<string | null>(null);
   const onChangeRef = useRef(onChange);
   onChangeRef.current = onChange;
   const ids = useMemo(() => ({ heading: `upload-${kind}-heading`, hint: `upload-${kind}-hint` }), [kind]);
@@ -186,6 +246,15 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
             const item = response.body as unknown as UploadItem;
             setSendError(null);
             update((prev) => [...prev.filter((i) => i.id !== item.id), item]);
+            setChecking(item.quality && !item.quality.ok ? item : null);
+            const replaced = replaceRef.current;
+            if (replaced && replaced !== item.id) {
+              replaceRef.current = null;
+              removeUpload(replaced).then(
+                () => update((prev) => prev.filter((i) => i.id !== replaced)),
+                (err: Error) => setSendError(err.message),
+              );
+            }
             // Leave "Sent" in view for a moment, then clear the Dashboard for the next photo.
             if (file) setTimeout(() => uppy.getFile(file.id) && uppy.removeFile(file.id), 1500);
           });
@@ -211,6 +280,13 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
     );
   };
 
+  /** Take again: the new photo is sent, and the flagged one is removed once it has arrived. */
+  const retake = (flagged: UploadItem, file: File) => {
+    replaceRef.current = flagged.id;
+    setChecking(null);
+    open([file]);
+  };
+
   const photoOnly = info.accepts === 'photo';
   const { state } = uploadKindStatus(kind, items);
   // Once a file is waiting or accepted, the drop zone folds away behind "Add another".
@@ -231,6 +307,12 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
         )}
         <span>{hint ?? info.hint}</span>
       </p>
+      {slotCaution(kind) && (
+        <p className="flex items-start gap-2 text-sm text-ground-800" data-testid="slot-caution">
+          <StopIcon className="mt-0.5 h-5 w-5 text-clay-600" />
+          <span>{slotCaution(kind)}</span>
+        </p>
+      )}
 
       {showDashboard && (
         <div className="gw-uppy" aria-describedby={ids.hint}>
@@ -245,7 +327,7 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
               hideProgressAfterFinish
               showRemoveButtonAfterComplete={false}
               doneButtonHandler={null}
-              showNativePhotoCameraButton={touch}
+              showNativePhotoCameraButton={touch && photoOnly}
               nativeCameraFacingMode="environment"
               fileManagerSelectionType="files"
               locale={widget.mod.dashboardStrings(photoOnly)}
@@ -255,6 +337,16 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
           )}
           <p className="mt-1 text-sm text-ground-700">{limitsLine(kind)}.</p>
         </div>
+      )}
+
+      {checking && (
+        <PhotoCheck
+          item={checking}
+          kind={kind}
+          touch={touch}
+          onRetake={(file) => retake(checking, file)}
+          onKeep={() => setChecking(null)}
+        />
       )}
 
       {sendError && (
@@ -279,7 +371,11 @@ export default function UploadSlot({ caseId, kind, title, hint, required = false
                 item={item}
                 title={heading}
                 canRemove={editable}
-                onRemoved={(id) => update((prev) => prev.filter((i) => i.id !== id))}
+                showFlag={checking?.id !== item.id}
+                onRemoved={(id) => {
+                  if (checking?.id === id) setChecking(null);
+                  update((prev) => prev.filter((i) => i.id !== id));
+                }}
               />
             ))}
           </ul>

@@ -3,7 +3,7 @@
 import { useState } from 'react';
 import { formatBytes, uploadStatusWords, type UploadItem, type UploadStatus } from '../../lib/schemas/uploads';
 import { removeUpload } from './api';
-import { AcceptedIcon, BinIcon, ClockIcon, DocumentIcon, NotAcceptedIcon } from '../icons';
+import { AcceptedIcon, BinIcon, ClockIcon, DocumentIcon, NotAcceptedIcon, WarningIcon } from '../icons';
 
 const chipStyle: Record<UploadStatus, string> = {
   waiting: 'border-ground-200 bg-ground-50 text-ground-800',
@@ -31,9 +31,11 @@ type Props = {
   title: string;
   canRemove: boolean;
   onRemoved: (id: string) => void;
+  /** False while the slot shows the photo check's prompt for this file. */
+  showFlag?: boolean;
 };
 
-export function UploadedFile({ item, title, canRemove, onRemoved }: Props) {
+export function UploadedFile({ item, title, canRemove, onRemoved, showFlag = true }: Props) {
   const [confirming, setConfirming] = useState(false);
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
@@ -92,6 +94,12 @@ export function UploadedFile({ item, title, canRemove, onRemoved }: Props) {
             </button>
           )}
         </div>
+        {showFlag && item.status === 'waiting' && item.quality && !item.quality.ok && (
+          <p className="mt-1 flex items-start gap-1 text-sm text-attention" data-testid="kept-flag">
+            <WarningIcon className="mt-0.5 h-4 w-4" />
+            <span>{item.quality.problems.map((p) => p.message).join(' ')} Your installer will decide.</span>
+          </p>
+        )}
         {item.status === 'rejected' && (
           <p className="mt-1 text-sm text-blocked" data-testid="reject-reason">
             {item.reason ? `The office says: ${item.reason}` : 'The office could not use this file.'} Please send a new one.

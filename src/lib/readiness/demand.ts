@@ -2,12 +2,15 @@
 // A2, each rule named), plus the new charger at full load (722.311), per phase on a
 // three-phase supply. A measured maximum demand recorded by the office or surveyor replaces
 // the estimate of the existing loads. Shared by supply-headroom, network-operator and timing.
+import { countOf } from '../grammar';
 import { chargerRating, knownPhases, type ChargerRating } from './charger';
 import { COMMON_PRACTICE, type ReadinessSettings } from './settings';
 import type { ChecklistAnswers, LoadAnswers, SiteMeasures } from './types';
 import { formatNumber, kwToAmps, positiveOrNull, roundTo } from './units';
 
-export const TABLE_A2 = "IET On-Site Guide Appendix A, Table A2 (as reproduced in The Electrician's Guide, Table 6.2; the OSG's own wording not seen)";
+// The Table A2 rules were read as reproduced in The Electrician's Guide (EPA Press, Table 6.2);
+// the On-Site Guide's own wording was not seen. Staff read the published table it reproduces.
+export const TABLE_A2 = 'IET On-Site Guide Appendix A, Table A2';
 export const REG_722_311 = 'BS 7671:2018+A2:2022 Regulation 722.311';
 
 /** The load questions; loads count as declared only when every one has an answer. */
@@ -251,7 +254,7 @@ function socketItem(socketCircuits: LoadAnswers['socketCircuits'], settings: Rea
   const counted = typeof socketCircuits === 'number';
   const circuits = counted ? socketCircuits : ifUnknown;
   const declared = counted
-    ? `${circuits} circuit${circuits === 1 ? '' : 's'} counted, each assumed ${settings.socketCircuitAmps} A (${COMMON_PRACTICE})`
+    ? `${countOf(circuits, 'circuit')} counted, each assumed ${settings.socketCircuitAmps} A (${COMMON_PRACTICE})`
     : `${socketCircuits === 'unsure' ? 'not sure' : 'not answered'}: ${circuits} assumed, each ${settings.socketCircuitAmps} A (${COMMON_PRACTICE})`;
   return {
     load: 'Socket-outlet circuits',

@@ -6,12 +6,24 @@ import type { ChecklistAnswers, SiteMeasures } from './types';
 import { formatNumber } from './units';
 
 export const ENA_SOURCE =
-  'Energy Networks Association, "Connecting electric vehicles and heat pumps" and its EV charge point / heat pump application form';
+  'Energy Networks Association, "Connecting electric vehicles and heat pumps" and its EV charge point / heat pump application form (Connect & Notify, Apply to Connect)';
+
+/**
+ * The trade body's own names for its two routes, as staff read them. Where each name comes from:
+ * "Connect & Notify" is written so in the ENA's "Frequently asked questions about connecting to
+ * the networks" (energynetworks.org, beside "Connecting electric vehicles and heat pumps");
+ * "Apply to Connect" stands beside it on NIE Networks' "Process for connecting new LCTs" page,
+ * which says the process is maintained by the ENA's Low Carbon Technologies Working Group.
+ * Both were read through the project's web search of published pages, not in the form itself.
+ *
+ * @example networkRouteNames['notify-after'] // 'Connect & Notify'
+ */
+export const networkRouteNames = Object.freeze({ 'notify-after': 'Connect & Notify', 'apply-before': 'Apply to Connect' } as const);
 
 /** The ENA form's per-phase limit for a charge point that may connect and notify (from memory). */
 export const ENA_CHARGER_LIMIT_AMPS_PER_PHASE = 32;
 
-/** The trade body's own names: "connect and notify" (install, then notify) and "apply to connect". */
+/** Our ids for the trade body's two routes: see networkRouteNames for the names staff read. */
 export type NetworkRoute = 'notify-after' | 'apply-before';
 export type NetworkReasonCode =
   | 'demand-over-cutout'
@@ -87,9 +99,10 @@ function demandReasons(
     if (cutout.known) reasons.push(reason('demand-over-cutout', `New maximum demand ${formatNumber(demandAmps, 2)} A${perPhase} exceeds the ${fuseAmps} A cut-out.`, true));
   }
   const limit = over(settings.enaDemandLimitAmps);
+  // The per-phase reading of the 60 A criterion on three phases is from memory, not seen in the form.
   if (limit.known) {
     const kva = (settings.enaDemandLimitAmps * settings.nominalVoltage) / 1000;
-    const what = phases === 3 ? `${settings.enaDemandLimitAmps} A per phase (three-phase criterion from memory)` : `${settings.enaDemandLimitAmps} A (${formatNumber(kva)} kVA single phase)`;
+    const what = phases === 3 ? `${settings.enaDemandLimitAmps} A per phase (three-phase criterion: confirm against the current application form)` : `${settings.enaDemandLimitAmps} A (${formatNumber(kva)} kVA single phase)`;
     reasons.push(reason('demand-over-limit', `New maximum demand ${formatNumber(demandAmps, 2)} A${perPhase} exceeds ${what}.`, true));
   }
   const cutoutPossible = fuseAmps !== null && over(fuseAmps).possible && !over(fuseAmps).known;

@@ -251,6 +251,15 @@ export interface ReachVerdict {
   shortByMetres: number;
 }
 
+/**
+ * Whether another bay holds a car while the electric car charges: yes unless the customer said
+ * there is only one car (an unknown count is taken as the harder case).
+ * @example otherBaysOccupied(1) // false
+ */
+export function otherBaysOccupied(cars: number | null | undefined): boolean {
+  return typeof cars !== 'number' || cars >= 2;
+}
+
 export interface ReachOptions {
   port?: ChargePort | null;
   slackMetres?: number;
@@ -307,7 +316,7 @@ const problemBySection: Record<string, string> = {
   chargePoint: 'Mark where you would like the charge point.',
   bays: 'Give each parking bay a position, width and length (one or two bays).',
   car: "Choose your car's size.",
-  chargePort: 'Pick where the charge port is on your car.',
+  chargePort: 'Pick where the charging socket is on the car.',
 };
 
 /**

@@ -56,6 +56,17 @@ export const readinessSettingsSchema = z.object({
   defaultTetherMetres: z.number().positive().default(5),
   defaultCustomerCableMetres: z.number().positive().default(5),
   portInsetMetres: metres(0.8),
+  // The photo check at upload (src/lib/server/photo-quality.server.ts).
+  photoSharpnessMin: z.number().nonnegative().default(100),
+  photoDarkMeanMax: z.number().min(0).max(255).default(45),
+  photoShadowClipPercentMax: z.number().min(0).max(100).default(50),
+  photoBrightMeanMin: z.number().min(0).max(255).default(215),
+  photoHighlightClipPercentMax: z.number().min(0).max(100).default(20),
+  photoDigitsMinLongEdgePx: z.number().int().min(1).max(10_000).default(1200),
+  photoDigitsMinShortEdgePx: z.number().int().min(1).max(10_000).default(900),
+  photoSceneMinLongEdgePx: z.number().int().min(1).max(10_000).default(800),
+  photoSceneMinShortEdgePx: z.number().int().min(1).max(10_000).default(600),
+  photoDuplicateMaxBits: z.number().int().min(0).max(64).default(6),
 });
 
 export type ReadinessSettings = z.output<typeof readinessSettingsSchema>;
@@ -119,7 +130,7 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     meaning:
       'Each socket circuit the customer counts is taken at this rating (a 32 A ring final circuit is the usual one); Table A2 then takes 100% of the largest plus 40% of every other.',
     unit: 'A',
-    source: `${COMMON_PRACTICE} (rating assumed); the 100% + 40% rule: IET On-Site Guide Appendix A, Table A2 (as reproduced in The Electrician's Guide, Table 6.2)`,
+    source: `${COMMON_PRACTICE} (rating assumed); the 100% + 40% rule: IET On-Site Guide Appendix A, Table A2`,
   },
   assumedSocketCircuits: {
     label: 'Socket circuits assumed when not known',
@@ -132,7 +143,7 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     label: 'Assumed connected lighting load',
     meaning: 'The checklist does not ask about lighting: this connected load is assumed, and Table A2 takes 66% of it.',
     unit: 'kW',
-    source: `${COMMON_PRACTICE} (load assumed); the 66% rule: IET On-Site Guide Appendix A, Table A2 (as reproduced in The Electrician's Guide, Table 6.2)`,
+    source: `${COMMON_PRACTICE} (load assumed); the 66% rule: IET On-Site Guide Appendix A, Table A2`,
   },
   cookerKw: {
     label: 'Assumed cooker rating',
@@ -144,7 +155,7 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     label: 'Cooker control unit has a socket',
     meaning: 'Adds the 5 A that Table A2 allows for a socket outlet on the cooker control unit.',
     unit: 'yes/no',
-    source: 'IET On-Site Guide Appendix A, Table A2 (as reproduced in The Electrician\'s Guide, Table 6.2)',
+    source: 'IET On-Site Guide Appendix A, Table A2',
   },
   immersionKw: {
     label: 'Assumed immersion heater rating',
@@ -159,16 +170,16 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     source: 'BS 7671:2018+A2:2022 Regulation 722.311 (current assumed: common practice)',
   },
   enaDemandLimitAmps: {
-    label: 'Notify-only demand limit',
+    label: 'Connect & Notify demand limit',
     meaning: 'New maximum demand above this means applying to the network operator before installing.',
     unit: 'A',
-    source: 'Energy Networks Association, "Connecting electric vehicles and heat pumps" (60 A, 13.8 kVA single phase)',
+    source: 'Energy Networks Association, "Connecting electric vehicles and heat pumps" and its application form (Connect & Notify criteria: 60 A, 13.8 kVA single phase)',
   },
   notifyWithinDays: {
     label: 'Notify the network operator within',
-    meaning: 'Days after connection within which a notify-only installation must be reported.',
+    meaning: 'Days after connection within which a Connect & Notify installation must be reported to the network operator.',
     unit: 'days',
-    source: 'Energy Networks Association, "Connecting electric vehicles and heat pumps"',
+    source: 'Energy Networks Association, "Connecting electric vehicles and heat pumps" and its application form (Connect & Notify: notify within 28 days)',
   },
   surveyLeadDays: {
     label: 'Survey lead time',
@@ -253,9 +264,73 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
   },
   portInsetMetres: {
     label: 'Charge port set back from the car\'s end',
-    meaning: 'How far a front or rear wing port sits from the bumper, roughly above the wheel (from memory).',
+    // From memory, not a published figure.
+    meaning: 'How far a front or rear wing port sits from the bumper, roughly above the wheel.',
     unit: 'm',
-    source: `${COMMON_PRACTICE} (from memory)`,
+    source: COMMON_PRACTICE,
+  },
+  photoSharpnessMin: {
+    label: 'Photo sharpness, at least',
+    meaning:
+      'A photo whose sharpness is below this is flagged as blurred. Sharpness = variance of the Laplacian L = I(x−1,y) + I(x+1,y) + I(x,y−1) + I(x,y+1) − 4·I(x,y) over a 1024 px greyscale copy whose 1st–99th percentile of brightness is stretched to 0–255 (so darkness alone does not read as blur).',
+    unit: 'variance',
+    source: `${COMMON_PRACTICE} (the threshold); the measure: variance of the Laplacian, Pech-Pacheco et al., ICPR 2000 (from memory)`,
+  },
+  photoDarkMeanMax: {
+    label: 'Too dark: mean brightness below',
+    meaning: 'Mean luminance of the greyscale copy, 0 (black) to 255 (white); below this the photo is flagged as too dark.',
+    unit: 'of 255',
+    source: COMMON_PRACTICE,
+  },
+  photoShadowClipPercentMax: {
+    label: 'Too dark: black share above',
+    meaning: 'Share of pixels at 5 or less (of 255), where nothing can be read; above this the photo is flagged as too dark.',
+    unit: '%',
+    source: COMMON_PRACTICE,
+  },
+  photoBrightMeanMin: {
+    label: 'Too bright: mean brightness above',
+    meaning: 'Mean luminance above this flags the photo as over-exposed. Not applied to letters and plans, whose paper is meant to be white.',
+    unit: 'of 255',
+    source: COMMON_PRACTICE,
+  },
+  photoHighlightClipPercentMax: {
+    label: 'Too bright: white share above',
+    meaning: 'Share of pixels at 250 or more (of 255), burnt out to white; above this the photo is flagged as over-exposed (not for letters and plans).',
+    unit: '%',
+    source: COMMON_PRACTICE,
+  },
+  photoDigitsMinLongEdgePx: {
+    label: 'Meter, cut-out and consumer unit photos (and letters): long side at least',
+    meaning:
+      'Phones send photos resized to 2560 px. Digits 40 px tall in a 12 MP (4032 px) frame are 12 px tall at 1200 px, the least that reads; smaller photos are flagged.',
+    unit: 'px',
+    source: COMMON_PRACTICE,
+  },
+  photoDigitsMinShortEdgePx: {
+    label: 'Meter, cut-out and consumer unit photos (and letters): short side at least',
+    meaning: 'The same for the short side (900 px is 1200 px at 4:3).',
+    unit: 'px',
+    source: COMMON_PRACTICE,
+  },
+  photoSceneMinLongEdgePx: {
+    label: 'Charge point spot and other photos: long side at least',
+    meaning: 'Photos that only need to show a place, not to be read.',
+    unit: 'px',
+    source: COMMON_PRACTICE,
+  },
+  photoSceneMinShortEdgePx: {
+    label: 'Charge point spot and other photos: short side at least',
+    meaning: 'The same for the short side.',
+    unit: 'px',
+    source: COMMON_PRACTICE,
+  },
+  photoDuplicateMaxBits: {
+    label: 'Same photo in two slots: differing bits at most',
+    meaning:
+      'Photos are compared by a 64-bit difference hash (dHash: the greyscale photo shrunk to 9 × 8, bit = 1 where a pixel is darker than its right neighbour). A photo within this many differing bits of one in another slot is flagged as the same photo.',
+    unit: 'bits',
+    source: `${COMMON_PRACTICE} (dHash as N. Krawetz described it, 2013, from memory)`,
   },
 };
 

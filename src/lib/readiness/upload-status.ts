@@ -26,14 +26,14 @@ export function uploadKindStatus(kind: UploadKind, uploads: readonly UploadSumma
   return { kind, state: 'missing', reason: null };
 }
 
-/** Customer-facing names of the upload kinds. */
+/** Customer-facing names of the upload kinds, each a countable noun phrase ("upload a …", "send a new …"). */
 export const uploadKindLabels: Readonly<Record<UploadKind, string>> = Object.freeze({
   meter_photo: 'photo of your electricity meter',
   cutout_photo: 'photo of the main fuse (cut-out)',
-  consumer_unit_photo: 'photo of your consumer unit (fuse box)',
+  consumer_unit_photo: 'photo of your consumer unit',
   charger_location_photo: 'photo of where you would like the charge point',
-  parking_evidence: 'proof of your parking space',
+  parking_evidence: 'document showing the parking space is yours to use',
   order_agreement: 'order agreement for the car',
-  landlord_permission: "your landlord's permission",
-  other: 'other document',
+  landlord_permission: 'letter or e-mail giving your landlord’s permission',
+  other: 'further document',
 });

@@ -21,6 +21,8 @@ export const queueQuerySchema = z
     surveyor: z.string().trim().min(1).max(100).optional(),
     q: z.string().trim().max(100, 'Search for at most 100 characters.').optional(),
     deliveryWithin: z.coerce.number({ invalid_type_error: 'deliveryWithin is a number of days.' }).int().min(0).max(365).optional(),
+    // Cases with a photo the check at upload flagged that the office has not yet reviewed.
+    photos: z.enum(['flagged'], { errorMap: () => ({ message: 'photos is flagged.' }) }).optional(),
     sort: z.enum(queueSortKeys, { errorMap: () => ({ message: `Sort by one of: ${queueSortKeys.join(', ')}.` }) }).default('light'),
     dir: z.enum(['asc', 'desc'], { errorMap: () => ({ message: 'dir is asc or desc.' }) }).default('asc'),
     // 1e308 is an "integer" to JavaScript: without a ceiling it reached PostgreSQL as an offset.
@@ -59,4 +61,6 @@ export type QueueItem = {
   surveyDate: string | null;
   /** Set when the customer changed something after the office marked the case ready. */
   changedSinceReadyAt: string | null;
+  /** Photos the check at upload flagged that are still waiting for review. */
+  flaggedPhotos: number;
 };

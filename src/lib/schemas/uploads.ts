@@ -2,6 +2,7 @@
 // Pure and client-safe: the upload island mirrors these restrictions, the server applies them.
 import { z } from 'zod';
 import type { UploadKind, UploadStatus } from '../readiness/types';
+import type { PhotoQuality } from '../photo-quality';
 
 export type { UploadKind, UploadStatus } from '../readiness/types';
 // One rule for "which uploads do these answers call for", shared with the readiness check.
@@ -74,7 +75,7 @@ export const uploadKindInfo: Readonly<Record<UploadKind, UploadKindInfo>> = Obje
     accepts: 'photo',
   },
   consumer_unit_photo: {
-    title: 'Consumer unit (fuse box)',
+    title: 'Consumer unit',
     hint: `The whole unit, cover closed, with the switch labels readable — ${NO_COVERS}.`,
     accepts: 'photo',
   },
@@ -174,6 +175,8 @@ export interface UploadItem {
   url: string;
   /** A small WebP preview for images; null for documents. */
   thumbUrl: string | null;
+  /** The photo check at upload (advice: the office decides); null for documents. */
+  quality: PhotoQuality | null;
 }
 
 /** The customer-facing word for a review status (always shown beside its icon). */

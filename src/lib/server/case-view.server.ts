@@ -4,27 +4,18 @@ import { fieldWarnings, sectionProgress, type Checklist } from '../schemas/check
 import { checkMpanCore } from '../validation/mpan';
 import type { CheckResult } from '../readiness';
 import { readSiteMeasures } from '../schemas/outcome';
+import { customerActionsFor } from '@/lib/vocabulary/readiness';
 
 /** Stages in which the customer may still change their answers. */
 export const editableStages: CaseRow['stage'][] = ['invited', 'filling_in', 'sent_for_review', 'in_review', 'ready_for_survey'];
 
 export type CaseView = ReturnType<typeof toCaseView>;
 
-// Actions written for the firm, not the customer ("The office to apply…", "The installer to plan…").
-const STAFF_ACTION = /^(the|our) (office|installer|surveyor|electrician)\b/i;
-// The firm's half of a shared action ("Answer the load questions, or the office to record…").
-const STAFF_CLAUSE = /,? or (the|our) (office|installer|surveyor|electrician) to\b.*$/i;
-
-/** The customer's part of an action, or null when it is the firm's alone. @example customerAction('Answer X, or the office to record Y.') // 'Answer X.' */
-export function customerAction(action: string): string | null {
-  if (STAFF_ACTION.test(action)) return null;
-  return STAFF_CLAUSE.test(action) ? `${action.replace(STAFF_CLAUSE, '').replace(/[.,;:\s]+$/, '')}.` : action;
-}
-
 /**
  * The checks as a viewer may see them: staff get everything; a customer gets their own words
- * only — no staffText, no figures, no actions meant for the firm.
- * @example checksFor(checks, 'customer')[0] // { id, light, title, customerText, actions, source }
+ * only — no staffText, no figures, no source, and none of the checks' actions (those are written
+ * for the firm): in their place, where in the checklist the customer can act.
+ * @example checksFor(checks, 'customer')[0] // { id, light, title, customerText, customerActions }
  */
 export function checksFor(checks: CheckResult[], role: Role) {
   if (role !== 'customer') return checks;
@@ -33,8 +24,7 @@ export function checksFor(checks: CheckResult[], role: Role) {
     light: c.light,
     title: c.title,
     customerText: c.customerText,
-    source: c.source,
-    actions: c.actions.map(customerAction).filter((a): a is string => a !== null),
+    customerActions: customerActionsFor(c),
   }));
 }
 

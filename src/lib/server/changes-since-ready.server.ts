@@ -9,7 +9,7 @@ import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
 import { config } from './config.server';
 import { db, type Tx } from './db.server';
-import { renderEmail } from './email-templates.server';
+import { changedSinceReadyEmail } from './email-templates.server';
 import type { SessionUser } from './users.server';
 
 export type ChangeSinceReady = { at: string; what: 'answers' | 'upload_added' | 'upload_removed'; detail: string };
@@ -65,12 +65,7 @@ export async function tellOfficeOfChange(row: Pick<CaseRow, 'id' | 'reference'>,
       sentById: actor.id,
       mail: {
         to: officeEmail,
-        subject: `Case ${row.reference} changed after it was marked ready`,
-        ...renderEmail(`${actor.name ?? actor.email} changed case ${row.reference} after it was marked ready`, [
-          { kind: 'p', text: `They ${describeChange(change)}. Further changes are listed on the case page until the survey is booked.` },
-          { kind: 'p', text: 'Look at the checks again before booking the survey.' },
-          { kind: 'button', text: 'Open the case', href: `${config.appUrl}/office/cases/${row.id}` },
-        ]),
+        ...changedSinceReadyEmail({ actorName: actor.name ?? actor.email, reference: row.reference, change: describeChange(change), url: `${config.appUrl}/office/cases/${row.id}` }),
       },
     });
   } catch (err) {

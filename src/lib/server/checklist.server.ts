@@ -11,7 +11,7 @@ import { readinessSettings } from './settings.server';
 import { HttpError } from './http';
 import { noteChangeSinceReady, tellOfficeOfChange } from './changes-since-ready.server';
 import { firm } from './office.server';
-import { fieldLabels } from '../field-labels';
+import { staffLabel } from '../vocabulary/fields';
 import type { SessionUser } from './users.server';
 
 /** Only the fields that really change, as { path: [before, after] }, for the audit trail. */
@@ -155,13 +155,9 @@ export async function confirmDetails(user: SessionUser, row: CaseRow, paths: rea
   });
 }
 
-/** "the main fuse rating, the earthing type" from changed paths such as supply.loads.showerKw. */
+/** "Main fuse (cut-out), as read, Electric shower" — the office's labels for changed paths. */
 function changedFieldWords(paths: string[]): string {
-  const label = (path: string) => {
-    for (let p = path; p.includes('.'); p = p.slice(0, p.lastIndexOf('.'))) if (fieldLabels[p]) return fieldLabels[p]!;
-    return path;
-  };
-  return [...new Set(paths.map(label))].join(', ');
+  return [...new Set(paths.map(staffLabel))].join(', ');
 }
 
 export type Gap = { section: string; title: string; missing: string[] };

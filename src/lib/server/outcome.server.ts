@@ -10,7 +10,7 @@ import { sendCaseMail } from './case-mail.server';
 import { toCaseView, type CaseView } from './case-view.server';
 import { config } from './config.server';
 import { transaction } from './db.server';
-import { renderEmail } from './email-templates.server';
+import { surveyRecordedEmail } from './email-templates.server';
 import { HttpError } from './http';
 import { firm } from './office.server';
 import { refreshReadiness } from './readiness.server';
@@ -94,13 +94,13 @@ export function outcomeEmail(actor: SessionUser, row: CaseRow, body: OutcomeBody
       .filter((id) => typeof body.measurements[id] === 'number')
       .map((id) => `${measurementFields[id].label}: ${body.measurements[id]} ${measurementFields[id].unit}`),
   ];
-  return {
-    subject: `Survey recorded for ${row.reference}: ${outcomeLabels[body.outcome]}`,
-    ...renderEmail(`${actor.name ?? 'The surveyor'} has recorded the survey`, [
-      { kind: 'p', text: `Case ${row.reference}, ${address}. The case is now Surveyed.` },
-      { kind: 'list', items: found },
-      ...(body.notes ? [{ kind: 'p' as const, text: `Notes: ${body.notes}` }] : []),
-      { kind: 'button', text: 'Open the case', href: `${config.appUrl}/office/cases/${row.id}` },
-    ]),
-  };
+  return surveyRecordedEmail({
+    surveyorName: actor.name ?? null,
+    reference: row.reference,
+    address,
+    outcome: outcomeLabels[body.outcome],
+    found,
+    notes: body.notes || null,
+    url: `${config.appUrl}/office/cases/${row.id}`,
+  });
 }

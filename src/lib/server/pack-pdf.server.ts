@@ -15,14 +15,17 @@ import {
   formatDay,
   formatMoment,
   lightWords,
-  networkRouteWords,
   cableBasisWords,
   demandBasisWords,
   electrodeTestWords,
   uploadStateWords,
-  wayWords,
-} from '../../components/surveyor/pack-words';
-import type { PlanSketch, SketchShape } from '../../components/surveyor/plan-sketch';
+  wayWord,
+  portWord,
+  gapWords,
+  networkRouteWord,
+} from '@/lib/vocabulary';
+import { countOf } from '@/lib/grammar';
+import type { PlanSketch, SketchShape } from '@/lib/plan/plan-sketch';
 import type { Pack, PackUpload } from './pack.server';
 import { uploadStorage } from './storage/index.server';
 
@@ -442,7 +445,7 @@ function titleBlock(w: PackWriter, pack: Pack) {
   const y = doc.y;
   w.lightTag(pack.readiness.light, w.left, y, 10.5);
   w.font(false, 10, colours.muted).doc.text(
-    w.t(`${pack.readiness.gapCount} of ${pack.readiness.checks.length} checks open`),
+    w.t(gapWords.staffOpen(pack.readiness.gapCount, pack.readiness.checks.length)),
     w.left + 140,
     y,
     { lineBreak: false },
@@ -541,10 +544,10 @@ function networkBlock(w: PackWriter, pack: Pack) {
   if (!n) return;
   w.subheading('Network operator');
   w.pairs([
-    ['Route', networkRouteWords[n.route] ?? n.route],
+    ['Route', networkRouteWord(n.route, true)],
     ['Settled', n.settled ? 'Yes' : 'Not yet: answers missing'],
     ['Demand against limit', `${fmt(n.assessedDemandAmps)} A of ${fmt(n.demandLimitAmps)} A`],
-    ['Lead time allowed', n.route === 'apply-before' ? `${n.leadTimeDays} days` : `Notify within ${n.notifyWithinDays} days`],
+    ['Lead time allowed', n.route === 'apply-before' ? countOf(n.leadTimeDays, 'day') : `Notify within ${countOf(n.notifyWithinDays, 'day')}`],
   ]);
   if (n.reasons.length) w.bullets(n.reasons.map((r) => `${r.text}${r.certain === false ? ' (possible: an answer is missing)' : ''}`), { size: 9 });
 }
@@ -605,7 +608,7 @@ function reachBlock(w: PackWriter, pack: Pack) {
   w.subheading('Cable reach');
   w.pairs([
     ['Cable', `${fmt(r.cableMetres)} m (${cableSourceWords[r.cableSource] ?? r.cableSource})`],
-    ['Charge port', r.port ? r.port.replace('-', ' ') : 'Not known'],
+    ['Charge port', portWord(r.port)],
   ]);
   if (r.verdicts.length) {
     w.table(
@@ -618,7 +621,7 @@ function reachBlock(w: PackWriter, pack: Pack) {
       ],
       r.verdicts.map((v) => [
         `Bay ${v.bayIndex + 1}`,
-        wayWords[v.way] ?? v.way,
+        wayWord(v.way),
         `${fmt(v.planMetres)} m`,
         `${fmt(v.requiredMetres)} m`,
         { text: v.reaches ? 'Reaches' : `Short by ${fmt(v.shortByMetres)} m`, bold: true, colour: v.reaches ? colours.green : colours.amber },

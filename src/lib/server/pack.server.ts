@@ -2,9 +2,9 @@
 // pack page and the PDF are made from the same facts and cannot drift apart.
 import { and, eq, inArray, sql } from 'drizzle-orm';
 import { cases, surveyOutcomes, uploads, users, type CaseRow, type UploadRow } from '../../db/schema';
+import { packCautions } from '../cautions';
 import { customerGaps, type CustomerGap } from '../gaps';
 import {
-  readinessCautions,
   readPlan,
   requiredUploadKinds,
   uploadKindStatus,
@@ -24,8 +24,8 @@ import { earthingLabels, outcomeLabels, type ConfirmedEarthing, type Measurement
 import { uploadKindInfo, type UploadKind } from '../schemas/uploads';
 import { stageLabels, type StageId } from '../stages';
 import { checkMpanCore } from '../validation/mpan';
-import { answerLabel, answerValue } from '../../components/surveyor/pack-words';
-import { planSketch, type PlanSketch } from '../../components/surveyor/plan-sketch';
+import { planSketch, type PlanSketch } from '@/lib/plan/plan-sketch';
+import { staffAnswer, staffLabel } from '@/lib/vocabulary';
 import { listNotes } from './case-records.server';
 import { findVisibleCase } from './cases.server';
 import { db } from './db.server';
@@ -167,20 +167,6 @@ export type ReachFigures = {
   problem: string | null;
 };
 
-/** Trade cautions for the surveyor beyond the customer's three, each with its source. */
-const siteCautions = [
-  {
-    text: 'PME and an outdoor charging point: a PME earthing facility is not to be used unless one of the listed measures applies (an installation earth electrode, or a device that disconnects live and protective conductors on a broken PEN). Check the current amendment. The earthing check stays amber until the measure is recorded; open soil only says whether an electrode is practical.',
-    source: 'BS 7671:2018+A2:2022 Regulation 722.411.4.1',
-  },
-  {
-    text: 'Each charging point needs its own 30 mA RCD of at least Type A; Type B, or Type A/F with an RDC-DD to BS IEC 62955, where DC fault current over 6 mA is possible.',
-    source: 'BS 7671:2018+A2:2022 Regulation 722.531.3.101',
-  },
-];
-
-const customerCautionSource = 'Groundwork trade reference, "Cautions to show"';
-
 /**
  * The case if this user may read its pack: the office, or the surveyor it is assigned to.
  * Customers (even for their own case) and other surveyors get undefined, which callers answer
@@ -234,7 +220,7 @@ export async function gatherPack(row: CaseRow): Promise<Pack> {
       checks: checks.filter((c) => c.light !== 'green').map((c) => ({ id: c.id, title: c.title, light: c.light, staffText: c.staffText, actions: c.actions })),
     },
     notes: notes.map((n) => ({ body: n.body, authorName: n.authorName, createdAt: n.createdAt })),
-    cautions: [...readinessCautions.map((text) => ({ text, source: customerCautionSource })), ...siteCautions],
+    cautions: packCautions.map((c) => ({ ...c })),
     outcome,
   };
 }
@@ -321,7 +307,7 @@ function answerSections(checklist: Checklist, outcome: PackOutcome | null): Pack
 }
 
 function answer(path: string, owner: Record<string, unknown>, key: string): PackAnswer {
-  return { path, label: answerLabel(path), value: answerValue(path, owner[key], key in owner) };
+  return { path, label: staffLabel(path), value: staffAnswer(path, owner[key], key in owner) };
 }
 
 // A car not registered yet is identified by its VIN: say so rather than "not answered".

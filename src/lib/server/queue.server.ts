@@ -1,7 +1,7 @@
 // Server-only: the office queue — filter, search, sort and paginate cases in SQL, never in memory.
 import { and, asc, desc, eq, inArray, isNull, or, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
-import { cases, users } from '../../db/schema';
+import { cases, uploads, users } from '../../db/schema';
 import type { QueueItem, QueueQuery, QueueSortKey } from '../schemas/queue';
 import { db } from './db.server';
 import { searchPattern } from '../../db/search-text';
@@ -9,6 +9,8 @@ import type { SessionUser } from './users.server';
 
 const surveyors = alias(users, 'surveyor');
 const deliveryDate = sql<string | null>`(${cases.checklist} -> 'vehicle' ->> 'deliveryDate')`;
+// A flagged photo counts until the office accepts or rejects it (uploads_case_idx finds a case's rows).
+const flaggedWaiting = sql`${uploads.caseId} = ${cases.id} and ${uploads.qualityOk} = false and ${uploads.status} = 'waiting'`;
 
 const sortColumns: Record<QueueSortKey, SQL | ReturnType<typeof sql>> = {
   customer: sql`lower(${users.name})`,
@@ -34,6 +36,7 @@ function where(user: SessionUser, q: QueueQuery): SQL | undefined {
   if (q.deliveryWithin !== undefined) {
     parts.push(sql`${deliveryDate} <= to_char((now() at time zone 'Europe/London')::date + ${q.deliveryWithin}::int, 'YYYY-MM-DD')`);
   }
+  if (q.photos === 'flagged') parts.push(sql`exists (select 1 from ${uploads} where ${flaggedWaiting})`);
   if (q.q) {
     // The postcode sits in search_text without its space, so try the term both ways.
     const squeezed = q.q.replace(/\s+/g, '');
@@ -67,6 +70,7 @@ const columns = {
   surveyorName: surveyors.name,
   surveyDate: cases.surveyDate,
   changedSinceReadyAt: cases.changedSinceReadyAt,
+  flaggedPhotos: sql<number>`(select count(*)::int from ${uploads} where ${flaggedWaiting})`,
   total: sql<number>`count(*) over ()`,
 };
 

@@ -1,11 +1,12 @@
 // Server-only: staff accounts — invite (with a set-your-password link), deactivate, set password.
+import { withArticle } from '../grammar';
 import { createHash, randomBytes } from 'node:crypto';
 import { and, asc, eq, gt, inArray } from 'drizzle-orm';
 import { users, verificationTokens } from '../../db/schema';
 import { audit } from './audit.server';
 import { config } from './config.server';
 import { db } from './db.server';
-import { renderEmail } from './email-templates.server';
+import { staffWelcomeEmail } from './email-templates.server';
 import { HttpError } from './http';
 import { sendMail } from './mail.server';
 import { hashPassword } from './passwords.server';
@@ -42,15 +43,7 @@ export async function inviteStaff(admin: SessionUser, input: { name: string; ema
     .insert(verificationTokens)
     .values({ identifier: identifierFor(input.email), token: hashToken(token), expires: new Date(Date.now() + 7 * 86_400_000) });
   const url = `${config.appUrl}/set-password?${new URLSearchParams({ email: input.email, token })}`;
-  await sendMail({
-    to: input.email,
-    subject: 'You have a Groundwork staff account',
-    ...renderEmail(`Welcome to Groundwork, ${input.name.split(' ')[0]}`, [
-      { kind: 'p', text: `${admin.name ?? 'An admin'} has given you a ${input.role} account. Choose a password to start.` },
-      { kind: 'button', text: 'Choose my password', href: url },
-      { kind: 'p', text: 'The link works once and lasts 7 days.' },
-    ]),
-  });
+  await sendMail({ to: input.email, ...staffWelcomeEmail({ name: input.name, adminName: admin.name ?? null, role: input.role, url }) });
   return user!;
 }
 

@@ -1,6 +1,7 @@
 // Server-only: receiving, re-encoding, storing, serving and deleting evidence uploads.
 // The body is streamed to a temporary file and cut off at the limit; images are decoded and
 // re-encoded so no metadata survives; the file moves into storage before its row commits.
+import { countOf } from '../grammar';
 import { createHash, randomUUID } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import { mkdir, open, rm, type FileHandle } from 'node:fs/promises';
@@ -10,7 +11,7 @@ import { pipeline } from 'node:stream/promises';
 import busboy from 'busboy';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
-import { and, asc, eq, ne, sql } from 'drizzle-orm';
+import { and, asc, eq, isNotNull, ne, sql } from 'drizzle-orm';
 import { cases, uploadKindEnum, uploads, type CaseRow, type UploadRow } from '../../db/schema';
 import {
   documentTypes,
@@ -30,6 +31,9 @@ import {
 } from '../schemas/uploads';
 import { audit } from './audit.server';
 import { reencodePhoto, TooManyPixels, Undecodable } from './images.server';
+import { assessPhoto, measurePhoto, type Measured, type OtherPhoto } from './photo-quality.server';
+import type { PhotoQuality } from '../photo-quality';
+import type { ReadinessSettings } from '../readiness/settings';
 import { editableStages } from './case-view.server';
 import { findVisibleCase } from './cases.server';
 import { config } from './config.server';
@@ -124,10 +128,10 @@ const refuse = {
     new HttpError(
       413,
       'payload_too_large',
-      `This case already holds ${files} files (${formatBytes(bytes)}), the most we keep for one home (${uploadLimits.caseMaxFiles} files, ${formatBytes(uploadLimits.caseMaxBytes)}). Please remove a photo you no longer need, or ask your installer.`,
+      `This case already holds ${countOf(files, 'file')} (${formatBytes(bytes)}), the most we keep for one home (${uploadLimits.caseMaxFiles} files, ${formatBytes(uploadLimits.caseMaxBytes)}). Please remove a photo you no longer need, or ask your installer.`,
     ),
   tooFast: (seconds: number) =>
-    new HttpError(429, 'rate_limited', `That is a lot of uploads in a short time. Please wait ${Math.ceil(seconds / 60)} minutes and try again.`, undefined, {
+    new HttpError(429, 'rate_limited', `That is a lot of uploads in a short time. Please wait ${countOf(Math.ceil(seconds / 60), 'minute')} and try again.`, undefined, {
       retryAfterSeconds: seconds,
     }),
   locked: () =>
@@ -395,15 +399,22 @@ type Prepared = {
   height: number | null;
   bytes: number;
   sha256: string;
+  /** The photo check's figures and hash; null for documents. */
+  measured: Measured | null;
 };
 
-/** Re-encodes a photo (see images.server.ts) into scratch files, turning its failures into refusals. */
+/**
+ * Re-encodes a photo (see images.server.ts) into scratch files, then measures it for the photo
+ * check (photo-quality.server.ts) from the sent file, turning failures into refusals.
+ */
 async function reencodeImage(input: ScratchFile, type: StoredType): Promise<Prepared> {
   const main = await ScratchFile.reserve(imageTypes[type as keyof typeof imageTypes]);
   const thumb = await ScratchFile.reserve('webp');
   try {
     const done = await reencodePhoto(input.path, type as ImageType, main.path, thumb.path);
-    return { main, thumb, type, ...done };
+    // The check advises: if it cannot measure, the photo is still kept, without a verdict.
+    const measured = await measurePhoto(input.path, done.width, done.height).catch(() => null);
+    return { main, thumb, type, ...done, measured };
   } catch (err) {
     await Promise.all([main.remove(), thumb.remove()]);
     if (err instanceof TooManyPixels) throw refuse.tooManyPixels(err.megapixels);
@@ -457,6 +468,7 @@ export function toUploadItem(row: UploadRow): UploadItem {
     reviewedAt: row.reviewedAt?.toISOString() ?? null,
     url: `/api/uploads/${row.id}`,
     thumbUrl: row.thumbKey ? `/api/uploads/${row.id}?size=thumb` : null,
+    quality: (row.quality as PhotoQuality | null) ?? null,
   };
 }
 
@@ -499,7 +511,10 @@ export async function receiveUpload(user: SessionUser, caseRow: CaseRow, request
     if (!typesFor(kind).includes(received.type)) throw refuse.photoOnly();
     const prepared = await prepare(received);
     scratch.push(prepared.main, ...(prepared.thumb ? [prepared.thumb] : []));
-    return await keep(user, caseRow, kind, received.originalName, prepared);
+    // Read before the transaction opens: inside it, every query must go through tx.
+    const settings = await readinessSettings();
+    const quality = prepared.measured ? assessPhoto(prepared.measured, kind, settings, await otherPhotos(caseRow.id)) : null;
+    return await keep(user, caseRow, kind, received.originalName, prepared, settings, quality);
   } finally {
     await Promise.all(scratch.map((f) => f.remove()));
   }
@@ -508,7 +523,7 @@ export async function receiveUpload(user: SessionUser, caseRow: CaseRow, request
 async function prepare(received: Received): Promise<Prepared> {
   if (received.type === 'application/pdf') {
     await checkPdf(received.file, received.bytes);
-    return { main: received.file, thumb: null, type: received.type, width: null, height: null, bytes: received.bytes, sha256: received.sha256 };
+    return { main: received.file, thumb: null, type: received.type, width: null, height: null, bytes: received.bytes, sha256: received.sha256, measured: null };
   }
   return inImageSlot(() => reencodeImage(received.file, received.type));
 }
@@ -530,6 +545,15 @@ async function inImageSlot<T>(work: () => Promise<T>): Promise<T> {
   }
 }
 
+/** The case's photos that have a hash, for the duplicate check (read before the transaction). */
+async function otherPhotos(caseId: string): Promise<OtherPhoto[]> {
+  const rows = await db()
+    .select({ kind: uploads.kind, hash: uploads.perceptualHash })
+    .from(uploads)
+    .where(and(eq(uploads.caseId, caseId), isNotNull(uploads.perceptualHash)));
+  return rows.map((r) => ({ kind: r.kind, hash: r.hash! }));
+}
+
 /** 413 when one more file of `bytes` would pass the case's quota (files or total bytes). */
 async function assertCaseHasRoom(q: Pick<ReturnType<typeof db>, 'select'>, caseId: string, bytes: number): Promise<void> {
   const [used] = await q
@@ -547,7 +571,15 @@ async function assertCaseHasRoom(q: Pick<ReturnType<typeof db>, 'select'>, caseI
  * never a row without its file: the storage sweep (storage-sweep.server.ts) removes such files
  * after its grace period.
  */
-async function keep(user: SessionUser, caseRow: CaseRow, kind: UploadKind, originalName: string | null, p: Prepared): Promise<UploadItem> {
+async function keep(
+  user: SessionUser,
+  caseRow: CaseRow,
+  kind: UploadKind,
+  originalName: string | null,
+  p: Prepared,
+  settings: ReadinessSettings,
+  quality: PhotoQuality | null,
+): Promise<UploadItem> {
   const id = randomUUID();
   const shard = id.slice(0, 2);
   const storageKey = `${shard}/${id}.${extensionOf(p.type)}`;
@@ -555,8 +587,6 @@ async function keep(user: SessionUser, caseRow: CaseRow, kind: UploadKind, origi
   let firstChangeAfterReady = false;
   const storage = uploadStorage();
   const removeStored = () => Promise.all([storage.delete(storageKey), thumbKey ? storage.delete(thumbKey) : null]).catch(() => {});
-  // Read before the transaction opens: inside it, every query must go through tx.
-  const settings = await readinessSettings();
   try {
     await storage.put(storageKey, { file: p.main.path });
     if (thumbKey && p.thumb) await storage.put(thumbKey, { file: p.thumb.path });
@@ -579,6 +609,9 @@ async function keep(user: SessionUser, caseRow: CaseRow, kind: UploadKind, origi
           uploadedBy: user.id,
           storageKey,
           thumbKey,
+          qualityOk: quality ? quality.ok : null,
+          quality,
+          perceptualHash: p.measured?.hash ?? null,
         })
         .returning();
       await audit(tx, { caseId: caseRow.id, actorId: user.id, action: 'upload.added', entity: 'upload', entityId: id, after: auditView(inserted!) });

@@ -6,7 +6,7 @@ import { queueQueryFromParams } from '../../lib/schemas/queue';
 import { zodIssuesToFields } from '../../lib/schemas/checklist';
 import { stageLabels } from '../../lib/stages';
 
-const header = ['Reference', 'Customer', 'E-mail', 'Address', 'Town', 'Postcode', 'Readiness', 'Open gaps', 'Gaps', 'Stage', 'Invited', 'Days since invite', 'Last customer activity', 'Delivery date', 'Surveyor', 'Survey date'];
+const header = ['Reference', 'Customer', 'E-mail', 'Address', 'Town', 'Postcode', 'Readiness', 'Open checks', 'Checks open', 'Stage', 'Invited', 'Days since invite', 'Last customer activity', 'Delivery date', 'Surveyor', 'Survey date', 'Photos flagged'];
 
 /** GET /api/cases.csv — the same filtered, sorted view as the queue, as CSV (staff only). */
 export const GET = api(async (ctx) => {
@@ -27,7 +27,7 @@ export const GET = api(async (ctx) => {
       const line = [
         r.reference, r.customerName ?? '', r.customerEmail, r.addressLine1 ?? '', r.town ?? '', r.postcode ?? '', r.light, r.gapCount,
         r.gaps.join('; '), stageLabels[r.stage], r.invitedAt.slice(0, 10), r.daysSinceInvite, r.lastCustomerActivityAt?.slice(0, 10) ?? '',
-        r.deliveryDate ?? '', r.surveyorName ?? '', r.surveyDate ?? '',
+        r.deliveryDate ?? '', r.surveyorName ?? '', r.surveyDate ?? '', r.flaggedPhotos,
       ];
       // Formula-like cells are prefixed so a spreadsheet never runs them (CSV injection).
       const safe = line.map((v) => (typeof v === 'string' && /^[=+\-@\t\r]/.test(v) ? `'${v}` : v));

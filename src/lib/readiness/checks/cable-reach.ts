@@ -1,25 +1,19 @@
 // Cable reach: whether the charging cable reaches the car's charge port in every way the
 // car is parked, measured on the customer's driveway plan.
-import { carSize, readPlan, reachVerdict, type ReachVerdict } from '../plan';
+import { withArticle } from '../../grammar';
+import { carSize, otherBaysOccupied, readPlan, reachVerdict, type ReachVerdict } from '../plan';
 import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
-import type { ChargePort, ChargerAnswers, CheckInput, CheckResult, ParkingHabit, ParkingWay } from '../types';
+import type { ChargePort, ChargerAnswers, CheckInput, CheckResult, ParkingHabit } from '../types';
 import { formatNumber, positiveOrNull } from '../units';
+import { optionWords } from '../../vocabulary/fields';
+import { cableSourceWords } from '../../vocabulary/pack';
+import { portLabels, portStaffLabels, wayLabels, wayPhrases } from '../../vocabulary/plan';
 
-const SOURCE = `Geometry of the customer's driveway plan; tethered cable commonly about 5 m (IEC 62196-2 connectors; ${COMMON_PRACTICE}); slack allowance and car sizes: ${COMMON_PRACTICE} (car sizes from memory)`;
+// The car sizes behind the sketch are from memory (see plan.ts); staff read only "common practice".
+const SOURCE = `Geometry of the customer's driveway plan; tethered cable commonly about 5 m (IEC 62196-2 connectors; ${COMMON_PRACTICE}); slack allowance and car sizes: ${COMMON_PRACTICE}`;
 const TITLE = 'Charging cable reaches your car';
 
 export type CableSource = 'tether' | 'tether-assumed' | 'customer-cable-assumed';
-
-const wayWords: Record<ParkingWay, string> = { 'nose-in': 'park nose in', 'reverse-in': 'reverse in' };
-const portWords: Record<ChargePort, string> = {
-  'front-left': 'front left',
-  'front-right': 'front right',
-  'front-centre': 'front centre',
-  'rear-left': 'rear left',
-  'rear-right': 'rear right',
-  'side-left': 'left side',
-  'side-right': 'right side',
-};
 
 /**
  * The cable length to test: a tethered unit's own cable (or the usual 5 m if not given), or
@@ -49,15 +43,15 @@ export function checkCableReach({ answers, settings }: CheckInput): CheckResult 
   const { plan, problems } = readPlan(charger.plan);
   if (!plan) return gapResult(`Plan incomplete: ${problems.join(' ')}`, problems[0] as string, cable);
   const port = plan.chargePort ?? answers.vehicle?.chargePort ?? null;
-  if (!port) return gapResult('Charge port position not given.', "Tell us where the charge port is on your car.", cable);
+  if (!port) return gapResult('Charge port position not given.', "Tell us where the charging socket is on your car.", cable);
   // Another car in the other bay is an obstacle unless the customer said there is only one car.
   const cars = answers.parking?.cars;
-  const otherBaysOccupied = typeof cars !== 'number' || cars >= 2;
+  const othersParked = otherBaysOccupied(cars);
   const verdicts = reachVerdict(plan, cable.metres, habit, {
     port,
     slackMetres: settings.cableSlackMetres,
     portInsetMetres: settings.portInsetMetres,
-    otherBaysOccupied,
+    otherBaysOccupied: othersParked,
   });
   const allReach = verdicts.every((v) => v.reaches);
   return {
@@ -75,7 +69,7 @@ export function checkCableReach({ answers, settings }: CheckInput): CheckResult 
       car: carSize(plan.car),
       slackMetres: settings.cableSlackMetres,
       bays: plan.bays.length,
-      otherBaysOccupied: plan.bays.length > 1 ? otherBaysOccupied : null,
+      otherBaysOccupied: plan.bays.length > 1 ? othersParked : null,
       verdicts,
     },
     source: SOURCE,
@@ -85,17 +79,17 @@ export function checkCableReach({ answers, settings }: CheckInput): CheckResult 
 
 function cableWords(cable: { metres: number; source: CableSource }): string {
   if (cable.source === 'customer-cable-assumed') return `your own charging cable (we've assumed ${formatNumber(cable.metres)} m)`;
-  if (cable.source === 'tether-assumed') return `a ${formatNumber(cable.metres)} m tethered cable (the usual length)`;
+  if (cable.source === 'tether-assumed') return `${withArticle(`${formatNumber(cable.metres)} m tethered cable`)} (the usual length)`;
   return `the ${formatNumber(cable.metres)} m tethered cable`;
 }
 
 function customerText(verdicts: readonly ReachVerdict[], cable: { metres: number; source: CableSource }, port: ChargePort): string {
   const failing = verdicts.filter((v) => !v.reaches);
-  const subject = `With ${cableWords(cable)} and the charge port at the ${portWords[port]}`;
+  const subject = `With ${cableWords(cable)} and the charging socket on the car at ${portLabels[port].toLowerCase()}`;
   if (failing.length === 0) return `${subject}, the cable reaches your car however you park it. Good news.`;
   const worst = failing.reduce((a, b) => (b.requiredMetres > a.requiredMetres ? b : a));
-  const ways = [...new Set(failing.map((v) => wayWords[v.way]))].join(' or ');
-  return `${subject}, the cable won't quite reach when you ${ways} — it would need about ${formatNumber(worst.requiredMetres)} m. Parking the other way, a longer cable or moving the charger a little would sort it.`;
+  const ways = [...new Set(failing.map((v) => wayPhrases[v.way]))].join(' or ');
+  return `${subject}, the cable won't quite reach when you ${ways} — it would need about ${formatNumber(worst.requiredMetres)} m. Parking the other way, a longer cable or moving the charge point a little would sort it.`;
 }
 
 function staffText(
@@ -106,9 +100,9 @@ function staffText(
   settings: ReadinessSettings,
 ): string {
   const lines = verdicts.map(
-    (v) => `bay ${v.bayIndex + 1} ${v.way}: ${formatNumber(v.requiredMetres, 2)} m needed (${formatNumber(v.planMetres, 2)} m on plan + ${settings.cableSlackMetres} m slack) — ${v.reaches ? 'reaches' : `short by ${formatNumber(v.shortByMetres, 2)} m`}`,
+    (v) => `bay ${v.bayIndex + 1} ${wayLabels[v.way].toLowerCase()}: ${formatNumber(v.requiredMetres, 2)} m needed (${formatNumber(v.planMetres, 2)} m on plan + ${settings.cableSlackMetres} m slack) — ${v.reaches ? 'reaches' : `short by ${formatNumber(v.shortByMetres, 2)} m`}`,
   );
-  return `Cable ${formatNumber(cable.metres, 2)} m (${cable.source}), port ${port}, habit ${habit}: ${lines.join('; ')}.`;
+  return `Cable ${formatNumber(cable.metres, 2)} m (${cableSourceWords[cable.source]}), port ${portStaffLabels[port].toLowerCase()}, parked ${(optionWords('parking.habit', String(habit), 'staff') ?? String(habit)).toLowerCase()}: ${lines.join('; ')}.`;
 }
 
 function gapResult(staffText: string, action: string, cable: { metres: number; source: CableSource }): CheckResult {

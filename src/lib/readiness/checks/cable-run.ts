@@ -1,6 +1,7 @@
 // Cable run: for each candidate size of armoured copper cable, the corrected capacity against
 // the protective device (Ib ≤ In ≤ Iz, Regulation 433.1.1) and the voltage drop against what is
 // left of the limit; the smallest size that passes both; and a flag for costly routes.
+import { optionWords } from '../../vocabulary/fields';
 import {
   CABLE_SIZES,
   cableTableSources,
@@ -17,7 +18,7 @@ import type { CableRoute, CheckInput, CheckResult, Light } from '../types';
 import { formatNumber, positiveOrNull, roundTo } from '../units';
 
 const SOURCE = `BS 7671:2018+A2:2022: Regulation 433.1.1 (Ib ≤ In ≤ Iz), 512.1.5 (terminal temperature), 523.9 (thermal insulation); Appendix 4 Tables 4D4A / 4E4A (capacity), 4E4B (voltage drop), 4B1–4B3 and 4C1 (correction factors), Table 4Ab (5% limit); long or complex routes: ${COMMON_PRACTICE}`;
-const TITLE = 'Cable from your fuse box to the charger';
+const TITLE = 'Cable from your consumer unit to the charge point';
 const COSTLY_ROUTES: readonly CableRoute[] = ['through-house', 'buried'];
 
 /** One correction factor applied to the tabulated capacity, with its source. */
@@ -68,7 +69,7 @@ export interface CableDesign {
 const AIR_AMBIENT: CorrectionFactor = { name: 'Ambient air 30 °C (Ca)', value: 1, basis: 'Table 4B1 at the tabulated 30 °C — assumed' };
 const NOT_GROUPED: CorrectionFactor = { name: 'Single circuit, not grouped (Cg)', value: 1, basis: 'Table 4C1, one circuit — assumed' };
 const GROUND_AMBIENT: CorrectionFactor = { name: 'Ground 20 °C (Ca)', value: 1, basis: 'Table 4B2 at the tabulated 20 °C — assumed' };
-const SOIL: CorrectionFactor = { name: 'Soil thermal resistivity 2.5 K·m/W', value: 1, basis: 'Table 4B3 at the tabulated value — assumed (from memory)' };
+const SOIL: CorrectionFactor = { name: 'Soil thermal resistivity 2.5 K·m/W', value: 1, basis: 'Table 4B3 at the tabulated value — assumed; confirm against the printed table' }; // from memory
 const INSULATION: CorrectionFactor = {
   name: 'Surrounded by thermal insulation over 0.5 m (Ci)',
   value: 0.5,
@@ -206,7 +207,8 @@ export function checkCableRun({ answers, settings }: CheckInput): CheckResult {
       recommendedCsaMm2: recommended,
       longRunThresholdMetres: settings.longRunMetres,
       reference70C: {
-        table: 'BS 7671 Table 4D4B, 70 °C thermoplastic — from memory, not seen in the source; not used to recommend',
+        // Values from memory, not seen in the source (TABLE_4D4B_FROM_MEMORY).
+        table: 'BS 7671 Table 4D4B, 70 °C thermoplastic — comparison only, not used to recommend; confirm against the printed table',
         fromMemory: true,
         sizes: design.basis.phases === 1 ? reference70CRows(design.charger.ampsPerPhase, metres, settings) : [],
       },
@@ -273,7 +275,7 @@ function customerText(
   ratingChosen: boolean,
 ): string {
   if (recommended === null) {
-    return `A cable run of about ${formatNumber(metres)} m is longer than any of the usual cable sizes can manage safely without losing too much voltage. The surveyor will look at another spot for the charger or another way to feed it.`;
+    return `A cable run of about ${formatNumber(metres)} m is longer than any of the usual cable sizes can manage safely without losing too much voltage. Your installer will look at another spot for the charge point or another way to feed it.`;
   }
   const base = `A cable run of about ${formatNumber(metres)} m ${routeWords(route)} looks workable.`;
   if (light === 'green') return base;
@@ -286,8 +288,8 @@ function customerText(
       .join(' and ');
     extra.push(`Because ${why}, it takes more cable and work, so the quote may be higher.`);
   }
-  if (route === null) extra.push('Please tell us how the cable could get from your fuse box to the charger.');
-  if (!ratingChosen) extra.push('Please choose how powerful a charger you would like, as that decides the cable size.');
+  if (route === null) extra.push('Please tell us how the cable could get from your consumer unit to the charge point.');
+  if (!ratingChosen) extra.push('Please choose how powerful a charge point you would like, as that decides the cable size.');
   return `${base} ${extra.join(' ')}`;
 }
 
@@ -309,7 +311,7 @@ function staffText(
   const factors = basis.factors.map((f) => `${f.name} ${f.value}`).join(', ');
   const phase = basis.phases === 3 ? 'three-phase, 4-core SWA' : 'single-phase, 2-core SWA';
   const assumed = charger.chosen ? '' : '; rating not chosen yet, assumed from settings';
-  return `Ib ${charger.ampsPerPhase} A (${formatNumber(charger.ratingKw)} kW${assumed}) ≤ In ${design.deviceAmps} A ≤ Iz; ${phase}, ${basis.terminalTemperatureC} °C terminal basis, reference method ${basis.method}, factors ${factors} (product ${basis.factor}). ${basis.routeAssumption ? `${basis.routeAssumption}. ` : ''}Drop at Ib over ${formatNumber(metres)} m against ${design.limitPercent}% − ${design.upstreamPercent}% upstream = ${design.allowedVolts} V: ${table}. ${verdict} Route: ${route ?? 'not given'}.`;
+  return `Ib ${charger.ampsPerPhase} A (${formatNumber(charger.ratingKw)} kW${assumed}) ≤ In ${design.deviceAmps} A ≤ Iz; ${phase}, ${basis.terminalTemperatureC} °C terminal basis, reference method ${basis.method}, factors ${factors} (product ${basis.factor}). ${basis.routeAssumption ? `${basis.routeAssumption}. ` : ''}Drop at Ib over ${formatNumber(metres)} m against ${design.limitPercent}% − ${design.upstreamPercent}% upstream = ${design.allowedVolts} V: ${table}. ${verdict} Route: ${route ? (optionWords('charger.route', route, 'staff') ?? route).toLowerCase() : 'not given'}.`;
 }
 
 function actions(
@@ -323,7 +325,7 @@ function actions(
   if (light === 'green') return [];
   const list: string[] = [];
   if (recommended === null) list.push('The surveyor to consider a charger position closer to the consumer unit, or another supply arrangement.');
-  if (route === null) list.push('Choose how the cable could run from the consumer unit to the charger.');
+  if (route === null) list.push('Choose how the cable could run from the consumer unit to the charge point.');
   if ((route !== null && COSTLY_ROUTES.includes(route)) || metres > settings.longRunMetres) {
     list.push('The office to price the longer or more complex route at survey.');
   }
@@ -336,8 +338,8 @@ function unknownLengthResult(route: CableRoute | null, design: CableDesign): Che
     id: 'cable-run',
     light: 'amber',
     title: TITLE,
-    customerText: 'Please give a rough estimate of the cable length from your fuse box (consumer unit) to where you would like the charger — pacing it out is fine.',
-    staffText: `Cable run length not given; sizes not computed (Ib ${design.charger.ampsPerPhase} A, In ${design.deviceAmps} A, method ${design.basis.method}). Route: ${route ?? 'not given'}.`,
+    customerText: 'Please give a rough estimate of the cable length from your consumer unit to where you would like the charge point — pacing it out is fine.',
+    staffText: `Cable run length not given; sizes not computed (Ib ${design.charger.ampsPerPhase} A, In ${design.deviceAmps} A, method ${design.basis.method}). Route: ${route ? (optionWords('charger.route', route, 'staff') ?? route).toLowerCase() : 'not given'}.`,
     figures: { ...designFigures(design, route), lengthMetres: null, sizes: [], recommendedCsaMm2: null },
     source: SOURCE,
     actions: ['Estimate the cable length from the consumer unit to the charge point.'],

@@ -2,6 +2,10 @@
 import { COMMON_PRACTICE } from '../settings';
 import type { ChecklistAnswers, CheckInput, CheckResult, Light, UploadKind } from '../types';
 import { uploadKindLabels, uploadKindStatus, type UploadKindStatus } from '../upload-status';
+import { endSentence } from '../../punctuation';
+
+/** A reason inside brackets, without the full stop the office may have typed: "(Too dark)". */
+const bracketed = (reason: string | null) => (reason ? ` (${reason.replace(/[.\s]+$/, '')})` : '');
 
 const SOURCE = `${COMMON_PRACTICE} (what the office needs before a survey)`;
 const TITLE = 'Photos and documents';
@@ -48,7 +52,7 @@ export function checkDocuments({ answers, uploads }: CheckInput): CheckResult {
     },
     source: SOURCE,
     actions: [
-      ...rejected.map((item) => `Upload a new ${uploadKindLabels[item.kind]}${item.reason ? ` (${item.reason})` : ''}.`),
+      ...rejected.map((item) => `Upload a new ${uploadKindLabels[item.kind]}${bracketed(item.reason)}.`),
       ...missing.map((item) => `Upload the ${uploadKindLabels[item.kind]}.`),
       ...waiting.map((item) => `The office to review the ${uploadKindLabels[item.kind]}.`),
     ],
@@ -59,7 +63,7 @@ function customerText(rejected: UploadKindStatus[], missing: UploadKindStatus[],
   if (rejected.length + missing.length + waiting.length === 0) return 'Thank you — we have everything we need.';
   const parts: string[] = [];
   for (const item of rejected) {
-    parts.push(`We couldn't use the ${uploadKindLabels[item.kind]}${item.reason ? `: ${item.reason}` : ''}. Please send another.`);
+    parts.push(`${endSentence(`We couldn't use the ${uploadKindLabels[item.kind]}${item.reason ? `: ${item.reason}` : ''}`)} Please send another.`);
   }
   if (missing.length > 0) parts.push(`Still to send: ${list(missing)}.`);
   if (waiting.length > 0) parts.push(`The office is checking the ${list(waiting)}.`);
@@ -82,7 +86,7 @@ const staffKindNames: Record<UploadKindStatus['kind'], string> = {
 function staffText(rejected: UploadKindStatus[], missing: UploadKindStatus[], waiting: UploadKindStatus[], total: number): string {
   const accepted = total - rejected.length - missing.length - waiting.length;
   const name = (item: UploadKindStatus) => staffKindNames[item.kind];
-  const rejectedText = rejected.map((item) => `${name(item)}${item.reason ? ` (${item.reason})` : ''}`).join(', ');
+  const rejectedText = rejected.map((item) => `${name(item)}${bracketed(item.reason)}`).join(', ');
   return [
     `${accepted}/${total} required uploads accepted.`,
     rejected.length ? `Rejected: ${rejectedText}.` : '',

@@ -6,7 +6,7 @@ import type { CheckInput, CheckResult, Earthing, EarthingMeasure, Light } from '
 import { formatNumber } from '../units';
 
 const SOURCE = `BS 7671:2018+A2:2022 Regulation 722.411.4.1 (PME and outdoor charging points); 411.5.3 (RA × IΔn ≤ 50 V); Table 41.5 Note 2 (above 200 Ω may not be stable; ${COMMON_PRACTICE} as applied here); 722.531.3.101 (RCD); soft ground near the charge point: ${COMMON_PRACTICE}`;
-const TITLE = 'Earthing for an outdoor charger';
+const TITLE = 'Earthing for an outdoor charge point';
 const RCD_NOTE =
   'RCD: the charging point needs its own 30 mA RCD, at least Type A; Type B, or Type A/F with an RDC-DD to BS IEC 62955, where DC fault current over 6 mA is possible (722.531.3.101).';
 const PME_RULE =
@@ -144,11 +144,11 @@ function groundText(ground: ElectrodeGround, metres: number | null | undefined, 
     case 'near':
       return `The open ground about ${formatNumber(metres ?? 0)} m from the charge point means an earth rod could go in there.`;
     case 'far':
-      return `The open ground is about ${formatNumber(metres ?? 0)} m away, further than the ${settings.nearSoftGroundMetres} m we count as near, so a charger with built-in protection may suit better.`;
+      return `The open ground is about ${formatNumber(metres ?? 0)} m away, further than the ${settings.nearSoftGroundMetres} m we count as near, so a charge point with built-in protection may suit better.`;
     case 'distance-unknown':
       return 'You mentioned open ground nearby: please tell us roughly how far it is from the charge point.';
     case 'none':
-      return 'With no open ground nearby, the installer will most likely use a charger with built-in protection.';
+      return 'With no open ground nearby, your installer will most likely use a charge point with built-in protection.';
     case 'unknown':
       return 'Please tell us whether there is open soil (a lawn or flower bed) near the charge point.';
   }
@@ -169,17 +169,17 @@ function customerText(
   measure: EarthingMeasure | null,
   test: ElectrodeTest | null,
 ): string {
-  if (earthing === 'tns') return 'Your home has a type of earthing that suits an outdoor charger without extra measures. The surveyor will confirm it.';
-  if (test?.passes === false) return 'The earth rod tested did not give a low enough reading for the safety switch that protects it. The installer will improve the earth rod or change the protection before the charger is used.';
-  if (test?.possiblyUnstable) return 'The earth rod works, but its reading is high enough that it may change with the weather. The installer may add to it or check it again.';
+  if (earthing === 'tns') return 'Your home has a type of earthing that suits an outdoor charge point without extra measures. Your installer will confirm it.';
+  if (test?.passes === false) return 'The earth rod tested did not give a low enough reading for the safety switch that protects it. Your installer will improve the earth rod or change the protection before the charge point is used.';
+  if (test?.possiblyUnstable) return 'The earth rod works, but its reading is high enough that it may change with the weather. Your installer may add to it or check it again.';
   if (earthing === 'tt') {
-    return test?.passes ? 'Your home has its own earth rod, and it tested well.' : 'Your home already has its own earth rod. The installer will test it on the day.';
+    return test?.passes ? 'Your home has its own earth rod, and it tested well.' : 'Your home already has its own earth rod. Your installer will test it on the day.';
   }
-  if (measure) return 'The installer has chosen the extra safety measure your earthing needs for an outdoor charger.';
+  if (measure) return 'Your installer has chosen the extra safety measure your earthing needs for an outdoor charge point.';
   const intro =
     earthing === 'pme'
-      ? 'Your home has the most common type of earthing (PME), which needs one extra safety measure for an outdoor charger: an earth rod in open ground, or a charger with built-in protection. The installer will choose which.'
-      : "We don't know how your home is earthed yet. Most homes have a type (PME) that needs one extra safety measure for an outdoor charger: an earth rod in open ground, or a charger with built-in protection. The surveyor will check.";
+      ? 'Your home has the most common type of earthing (PME), which needs one extra safety measure for an outdoor charge point: an earth rod in open ground, or a charge point with built-in protection. Your installer will choose which.'
+      : "We don't know how your home is earthed yet. Most homes have a type (PME) that needs one extra safety measure for an outdoor charge point: an earth rod in open ground, or a charge point with built-in protection. Your installer will check.";
   return `${intro} ${groundText(ground, metres, settings)} ${COVERS_CAUTION}`;
 }
 

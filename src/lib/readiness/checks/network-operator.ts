@@ -1,6 +1,6 @@
 // Network operator: can the job install and notify within 28 days, or must it apply first?
 import { checkMpanCore } from '../../validation/mpan';
-import { decideNetworkRoute, ENA_SOURCE, type NetworkRouteDecision } from '../network-route';
+import { decideNetworkRoute, ENA_SOURCE, networkRouteNames, type NetworkRouteDecision } from '../network-route';
 import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
 import type { CheckInput, CheckResult, Light } from '../types';
 
@@ -27,7 +27,7 @@ export function checkNetworkOperator({ answers, site, settings }: CheckInput): C
       reasons: decision.reasons,
       settled: decision.settled,
       applyBeforeKnown: decision.applyBeforeKnown,
-      routeName: decision.route === 'notify-after' ? 'connect and notify' : 'apply to connect',
+      routeName: networkRouteNames[decision.route],
       supplyPhases: decision.supplyPhases,
       leadTimeDays: decision.route === 'apply-before' ? settings.supplyUpgradeLeadDays : 0,
       notifyWithinDays: settings.notifyWithinDays,
@@ -50,12 +50,12 @@ function regionOf(mpanCore: string | null | undefined): string | null {
 function customerText(decision: NetworkRouteDecision, settings: ReadinessSettings): string {
   if (decision.route === 'notify-after') {
     const pending = decision.settled ? '' : ' We still need one or two answers about your supply to be sure.';
-    return `Your installer can fit the charger and then let your local network operator know within ${settings.notifyWithinDays} days — nothing for you to arrange.${pending}`;
+    return `Your installer can fit the charge point and then let your local network operator know within ${settings.notifyWithinDays} days — nothing for you to arrange.${pending}`;
   }
   const onlyUnknowns = !decision.applyBeforeKnown;
   const need = onlyUnknowns
-    ? 'Until we know a little more about your supply, we plan as if your installer must apply to your local network operator (the company that runs the cables to your street) before the charger is connected.'
-    : 'Before the charger is connected, your installer needs to apply to your local network operator (the company that runs the cables to your street).';
+    ? 'Until we know a little more about your supply, we plan as if your installer must apply to your local network operator (the company that runs the cables to your street) before the charge point is connected.'
+    : 'Before the charge point is connected, your installer needs to apply to your local network operator (the company that runs the cables to your street).';
   return `${need} That can take from under a week to about a month, so we start early — there is nothing you need to arrange yourself.`;
 }
 
@@ -64,10 +64,10 @@ function staffText(decision: NetworkRouteDecision, region: string | null, settin
   if (decision.route === 'notify-after') {
     const pending = decision.settled ? '' : ' Not settled: fuse, looped supply or loads still unknown.';
     const perPhase = decision.supplyPhases === 3 ? ' per phase' : '';
-    return `ENA "connect and notify" (from memory): all notification criteria met (demand ${decision.assessedDemandAmps} A${perPhase} ≤ ${settings.enaDemandLimitAmps} A and within the cut-out, charge point ≤ 32 A per phase, not looped). Notify within ${settings.notifyWithinDays} days of connection.${pending}${area}`;
+    return `ENA ${networkRouteNames['notify-after']}: all notification criteria met (demand ${decision.assessedDemandAmps} A${perPhase} ≤ ${settings.enaDemandLimitAmps} A and within the cut-out, charge point ≤ 32 A per phase, not looped). Notify within ${settings.notifyWithinDays} days of connection.${pending}${area}`;
   }
   const why = decision.reasons.map((r) => `${r.text}${r.certain ? '' : ' (possible: answer missing)'}`).join(' ');
-  return `ENA "apply to connect"${decision.applyBeforeKnown ? '' : ' assumed until answers are in'}: ${why} Allow ${settings.supplyUpgradeLeadDays} days (common practice).${area}`;
+  return `ENA ${networkRouteNames['apply-before']}${decision.applyBeforeKnown ? '' : ' assumed until answers are in'}: ${why} Allow ${settings.supplyUpgradeLeadDays} days (common practice).${area}`;
 }
 
 function actions(decision: NetworkRouteDecision): string[] {

@@ -1,4 +1,5 @@
 // Parking: private off-street parking is needed; a bay not attached to the home needs evidence.
+import { optionWords } from '../../vocabulary/fields';
 import { COMMON_PRACTICE } from '../settings';
 import type { CheckInput, CheckResult, ParkingKind } from '../types';
 import { uploadKindStatus, type UploadKindStatus } from '../upload-status';
@@ -31,7 +32,7 @@ export function checkParking({ answers, uploads }: CheckInput): CheckResult {
     );
   }
   if (kind !== 'detached-bay') {
-    return result('green', 'Thank you — your parking at home suits a charge point.', `Off-street parking: ${kind}.`, kind, null, []);
+    return result('green', 'Thank you — your parking at home suits a charge point.', `Off-street parking: ${(optionWords('parking.kind', kind, 'staff') ?? kind).toLowerCase()}.`, kind, null, []);
   }
   return detachedBayResult(uploadKindStatus('parking_evidence', uploads));
 }
@@ -41,13 +42,13 @@ function detachedBayResult(evidence: UploadKindStatus): CheckResult {
     case 'accepted':
       return result('green', 'Thank you — we have checked the proof of your parking space.', 'Detached bay; parking evidence accepted.', 'detached-bay', evidence, []);
     case 'waiting':
-      return result('amber', 'Thank you for the proof of your parking space: the office will check it soon.', 'Detached bay; parking evidence awaiting review.', 'detached-bay', evidence, [
+      return result('amber', 'Thank you for the proof of your parking space: your installer will check it soon.', 'Detached bay; parking evidence awaiting review.', 'detached-bay', evidence, [
         'The office to review the parking evidence.',
       ]);
     case 'rejected':
       return result(
         'red',
-        `We couldn't accept the proof of your parking space${evidence.reason ? `: ${evidence.reason}` : ''}. Please send another, such as property records or a lease plan showing the bay.`,
+        `We couldn't accept the proof of your parking space${evidence.reason ? `: ${evidence.reason}` : ''}. Please send another, such as a title plan or lease plan showing the bay.`,
         `Detached bay; parking evidence rejected${evidence.reason ? ` (${evidence.reason})` : ''}.`,
         'detached-bay',
         evidence,
@@ -56,7 +57,7 @@ function detachedBayResult(evidence: UploadKindStatus): CheckResult {
     case 'missing':
       return result(
         'amber',
-        'As your parking bay is not attached to your home, please upload proof that it is yours to use, such as property records or a lease plan.',
+        'As your parking bay is not attached to your home, please upload proof that it is yours to use, such as a title plan or lease plan.',
         'Detached bay; no parking evidence uploaded.',
         'detached-bay',
         evidence,

@@ -1,5 +1,6 @@
 // Supply headroom: does the main fuse (cut-out) cover the home's assessed maximum demand with
 // the new charger running at full load, and does the supply have the phases the charger needs?
+import { withArticle } from '../../grammar';
 import { assessMaximumDemand, REG_722_311, TABLE_A2, type DemandAssessment } from '../demand';
 import { atLeast, worstLight } from '../lights';
 import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
@@ -10,7 +11,7 @@ import { formatNumber, roundTo } from '../units';
 export const LARGEST_DOMESTIC_FUSE_AMPS = 100;
 
 const SOURCE = `${TABLE_A2}; ${REG_722_311}; 230 V nominal: ESQCR 2002 (SI 2002/2665); 11 kW ≈ 16 A and 22 kW ≈ 32 A per phase: ${COMMON_PRACTICE}; 60 A usually needs an upgrade, 100 A usually fine: ${COMMON_PRACTICE}`;
-const TITLE = 'Room on your supply for the charger';
+const TITLE = 'Room on your supply for the charge point';
 const FUSE_CAUTION =
   "Please don't open the cut-out or remove any covers: only your network operator may change the main fuse.";
 
@@ -54,8 +55,8 @@ function withPhaseFit(result: CheckResult, fit: PhaseFit, demand: DemandAssessme
     ...result,
     light: worstLight([result.light, known ? 'red' : 'amber']),
     customerText: known
-      ? `A ${kw} kW charger needs a three-phase supply, and you told us yours is single phase. A 7.4 kW charger suits a single-phase home; or your network operator can say whether three phases could be brought in. ${result.customerText}`
-      : `A ${kw} kW charger needs a three-phase supply. Please tell us whether yours is single or three phase (the photos of your meter and cut-out usually show it). ${result.customerText}`,
+      ? `${capital(withArticle(`${kw} kW charge point`))} needs a three-phase supply, and you told us yours is single phase. A 7.4 kW charge point suits a single-phase home; or your network operator can say whether three phases could be brought in. ${result.customerText}`
+      : `${capital(withArticle(`${kw} kW charge point`))} needs a three-phase supply. Please tell us whether yours is single or three phase (the photos of your meter and cut-out usually show it). ${result.customerText}`,
     staffText: `${known ? 'Three-phase charge point on a single-phase supply: cannot be connected at its rating.' : 'Three-phase charge point; supply phases not known.'} ${result.staffText}`,
     figures,
     actions: [
@@ -124,7 +125,7 @@ export function headroomLight(
 function mostText(demand: DemandAssessment): string {
   const measured = demand.basis === 'measured' ? ', using the readings taken of your home’s actual use,' : '';
   const phase = demand.supplyPhases === 3 ? ' on the busiest of your three phases' : '';
-  return `The most your home could draw at once${measured} with the new charger running flat out works out at about ${formatNumber(demand.assessedDemandAmps)} A${phase}`;
+  return `The most your home could draw at once${measured} with the new charge point running flat out works out at about ${formatNumber(demand.assessedDemandAmps)} A${phase}`;
 }
 
 function knownFuseCustomerText(
@@ -136,7 +137,7 @@ function knownFuseCustomerText(
 ): string {
   const most = mostText(demand);
   if (light === 'red') {
-    return `${most} — more than your ${fuseAmps} A main fuse. This is common and can be sorted: the installer can fit a device that slows charging when the house is busy, or your network operator can upgrade the fuse. ${FUSE_CAUTION}`;
+    return `${most} — more than your ${fuseAmps} A main fuse. This is common and can be sorted: your installer can fit a device that slows charging when the house is busy, or your network operator can upgrade the fuse. ${FUSE_CAUTION}`;
   }
   if (light === 'green') {
     return `${most}, comfortably within your ${fuseAmps} A main fuse (about ${formatNumber(headroom)} A to spare).`;
@@ -145,11 +146,11 @@ function knownFuseCustomerText(
   if (headroom < 0) {
     notes.push(`${most}, which could be more than your ${fuseAmps} A main fuse — but that figure rests on some guesses.`);
   } else if (headroom < settings.headroomMarginAmps) {
-    notes.push(`${most}, within your ${fuseAmps} A main fuse but with only about ${formatNumber(headroom)} A to spare, so the installer may fit a device that slows charging when the house is busy.`);
+    notes.push(`${most}, within your ${fuseAmps} A main fuse but with only about ${formatNumber(headroom)} A to spare, so your installer may fit a device that slows charging when the house is busy.`);
   } else {
     notes.push(`${most}, within your ${fuseAmps} A main fuse.`);
   }
-  if (fuseAmps <= settings.smallFuseAmps) notes.push(`A ${fuseAmps} A main fuse is on the small side for a charger, so the installer will look at it closely.`);
+  if (fuseAmps <= settings.smallFuseAmps) notes.push(`${capital(withArticle(`${fuseAmps} A main fuse`))} is on the small side for a charge point, so your installer will look at it closely.`);
   if (!demand.firm) notes.push(unansweredText(demand));
   notes.push(FUSE_CAUTION);
   return notes.join(' ');
@@ -157,7 +158,7 @@ function knownFuseCustomerText(
 
 function unansweredText(demand: DemandAssessment): string {
   if (!demand.loadsDeclared) return "We haven't heard about all of your big electrical appliances yet, so this may go up.";
-  return 'We don’t know how many socket circuits your home has, so this is a rough figure; the labels in your fuse box (consumer unit) usually tell.';
+  return 'We don’t know how many socket circuits your home has, so this is a rough figure; the labels in your consumer unit usually tell.';
 }
 
 function workingText(demand: DemandAssessment): string {
@@ -203,8 +204,8 @@ function unknownFuseResult(demand: DemandAssessment, settings: ReadinessSettings
     [60, 80, 100].map((rating) => [String(rating), roundTo(rating - demand.assessedDemandAmps, 2)]),
   );
   const customerText = overEveryRating
-    ? `We couldn't read your main fuse, but the most your home could draw at once with the new charger works out at about ${formatNumber(demand.assessedDemandAmps)} A — more than even the largest household fuse (100 A). The installer will plan a device that slows charging when the house is busy, or ask the network operator about an upgrade. ${FUSE_CAUTION}`
-    : `We don't know your main fuse rating yet, so we can't tell whether there is room for the charger. A clear photo of the cut-out (the sealed box where the supply cable comes in) usually shows it. ${FUSE_CAUTION}`;
+    ? `We couldn't read your main fuse, but the most your home could draw at once with the new charge point works out at about ${formatNumber(demand.assessedDemandAmps)} A — more than even the largest household fuse (100 A). Your installer will plan a device that slows charging when the house is busy, or ask the network operator about an upgrade. ${FUSE_CAUTION}`
+    : `We don't know your main fuse rating yet, so we can't tell whether there is room for the charge point. A clear photo of the cut-out (the sealed box where the supply cable comes in) usually shows it. ${FUSE_CAUTION}`;
   return {
     id: 'supply-headroom',
     light,
@@ -219,3 +220,5 @@ function unknownFuseResult(demand: DemandAssessment, settings: ReadinessSettings
     ],
   };
 }
+
+const capital = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);

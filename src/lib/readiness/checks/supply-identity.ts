@@ -2,8 +2,10 @@
 import { checkMpanCore, INDEPENDENT_NETWORK } from '../../validation/mpan';
 import type { CheckInput, CheckResult } from '../types';
 
+// The independent-network IDs 24–37 are from memory, not seen in the market operator's list: staff
+// are told to confirm an unfamiliar ID against that published list instead.
 const SOURCE =
-  "The market operator's MPAN definition (Master Registration Agreement): check digit weights 3, 5, 7, 13, 17, 19, 23, 29, 31, 37, 41, 43, sum mod 11 mod 10; distributor IDs 10–23 the GB regions; independent-network IDs 24–37 from memory, not seen in the published list";
+  "The market operator's MPAN definition (Master Registration Agreement): check digit weights 3, 5, 7, 13, 17, 19, 23, 29, 31, 37, 41, 43, sum mod 11 mod 10; distributor IDs 10–23 the 14 GB distribution regions, 24 and above independent network operators (confirm an unfamiliar ID against the market operator's published list)";
 const TITLE = 'Your electricity supply number (MPAN)';
 
 /**
@@ -37,7 +39,7 @@ export function checkSupplyIdentity({ answers }: CheckInput): CheckResult {
       ? 'Thank you — your supply number adds up, but it starts with a network number we do not recognise. The office will check it against your bill; nothing for you to do unless it was mistyped.'
       : `Thank you — your supply number checks out. ${whereText(checked.region)}`,
     staffText: unlisted
-      ? `MPAN core ${checked.core} passes the check digit, but distributor ID ${checked.distributorId} is not on the list of independent-network IDs (24–37, from memory): confirm against a bill or the market operator's list.`
+      ? `MPAN core ${checked.core} passes the check digit, but distributor ID ${checked.distributorId} is not among the independent-network IDs we know (24–37): confirm it against a bill and the market operator's published list.`
       : `MPAN core ${checked.core} valid (check digit); distributor ID ${checked.distributorId}: ${checked.region}.`,
     figures: {
       mpanCore: checked.core,

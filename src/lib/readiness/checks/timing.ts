@@ -1,6 +1,7 @@
 // Timing: can the survey, the install and any network-operator step fit before the car arrives?
+import { countOf } from '../../grammar';
 import { addDays, isoDayNumber } from '../dates';
-import { decideNetworkRoute, ENA_SOURCE } from '../network-route';
+import { decideNetworkRoute, ENA_SOURCE, networkRouteNames } from '../network-route';
 import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
 import type { CheckInput, CheckResult, Light } from '../types';
 
@@ -69,7 +70,7 @@ export function checkTiming({ answers, site, settings, today }: CheckInput): Che
   const knownSpareDays = daysUntilDelivery - known.totalLeadDays;
   const figures = { ...base, daysUntilDelivery, spareDays, knownSpareDays };
   if (daysUntilDelivery <= 0) {
-    return result('amber', "Your car is already with you (or arrives today), so we'll get the charger fitted as soon as we can. In the meantime, please follow the car maker's advice on charging.", `Car delivered or due today (${deliveryDate}); earliest install ${earliestInstallDate}. Book as soon as possible.`, figures, ['Book the survey as soon as possible.']);
+    return result('amber', "Your car is already with you (or arrives today), so we'll get the charge point fitted as soon as we can. In the meantime, please follow the car maker's advice on charging.", `Car delivered or due today (${deliveryDate}); earliest install ${earliestInstallDate}. Book as soon as possible.`, figures, ['Book the survey as soon as possible.']);
   }
   const light = timingLightWithUnknowns(spareDays, knownSpareDays, settings.timingSlackDays);
   const pending = !networkLeadKnown && light !== 'green';
@@ -90,14 +91,14 @@ export function timingLightWithUnknowns(worstSpareDays: number, knownSpareDays: 
 
 function customerText(light: Light, spareDays: number, applyBefore: boolean, pending: boolean): string {
   const network = applyBefore ? ', including the time your network operator needs,' : '';
-  if (pending) return `If your network operator has to approve the charger first, the survey and install may not fit before your car arrives. A few answers about your supply will tell us: please send them soon.`;
-  if (light === 'green') return `There is time to survey and fit the charger${network} before your car arrives, with about ${spareDays} days to spare.`;
-  if (light === 'amber') return `The survey and install${network} should just fit before your car arrives, with only ${spareDays} day${spareDays === 1 ? '' : 's'} to spare. Sending the rest of your answers soon helps.`;
-  return `The survey and install${network} will probably take longer than the time before your car arrives — about ${-spareDays} day${spareDays === -1 ? '' : 's'} too long. We'll do all we can; please send the rest of your answers as soon as possible.`;
+  if (pending) return `If your network operator has to approve the charge point first, the survey and install may not fit before your car arrives. A few answers about your supply will tell us: please send them soon.`;
+  if (light === 'green') return `There is time to survey and fit the charge point${network} before your car arrives, with about ${countOf(spareDays, 'day')} to spare.`;
+  if (light === 'amber') return `The survey and install${network} should just fit before your car arrives, with only ${countOf(spareDays, 'day')} to spare. Sending the rest of your answers soon helps.`;
+  return `The survey and install${network} will probably take longer than the time before your car arrives — about ${countOf(-spareDays, 'day')} too long. We'll do all we can; please send the rest of your answers as soon as possible.`;
 }
 
 function staffText(figures: { daysUntilDelivery: number; totalLeadDays: number; spareDays: number; knownSpareDays: number; earliestInstallDate: string; supplyUpgradeLeadDays: number; deliveryDate: string | null }, settings: ReadinessSettings, networkLeadKnown: boolean): string {
-  const upgrade = figures.supplyUpgradeLeadDays > 0 ? ` + ${figures.supplyUpgradeLeadDays} DNO (apply to connect${networkLeadKnown ? '' : ', possible: answers missing'})` : '';
+  const upgrade = figures.supplyUpgradeLeadDays > 0 ? ` + ${figures.supplyUpgradeLeadDays} DNO (${networkRouteNames['apply-before']}${networkLeadKnown ? '' : ', possible: answers missing'})` : '';
   const known = networkLeadKnown ? '' : ` Without the possible DNO step: spare ${figures.knownSpareDays} days.`;
   return `Delivery ${figures.deliveryDate} in ${figures.daysUntilDelivery} days; lead ${figures.totalLeadDays} days (${settings.surveyLeadDays} survey + ${settings.installLeadDays} install${upgrade}, calendar days); earliest install ${figures.earliestInstallDate}; spare ${figures.spareDays} days (slack ${settings.timingSlackDays}).${known}`;
 }

@@ -1,33 +1,32 @@
 // The plan's words: names of ports and parking ways, and the reach verdict as a sentence, so
-// the drawing, the summary and the tests say the same thing.
-import type { CableSource } from '../../lib/readiness/checks/cable-reach';
-import type { CarSizeClass, ReachVerdict } from '../../lib/readiness/plan';
-import type { ChargePort, ParkingWay } from '../../lib/readiness/types';
-import { formatNumber, roundTo } from '../../lib/readiness/units';
+// the drawing, the summary, the pack sketch and the tests say the same thing. The names come
+// from the field vocabulary (vehicle.chargePort, parking.habit), so they match the checklist.
+import type { CableSource } from '@/lib/readiness/checks/cable-reach';
+import type { CarSizeClass, ReachVerdict } from '@/lib/readiness/plan';
+import type { ChargePort, ParkingWay } from '@/lib/readiness/types';
+import { formatNumber, roundTo } from '@/lib/readiness/units';
+import { fieldWords } from './fields';
+
+/** A field's options as value → words for one audience. */
+export const optionMap = <K extends string>(options: readonly { value: string; customer: string; staff: string }[], audience: 'customer' | 'staff') =>
+  Object.fromEntries(options.map((o) => [o.value, o[audience]])) as Record<K, string>;
 
 /** Port positions as the customer reads them (left and right from the driver's seat). */
-export const portLabels: Record<ChargePort, string> = {
-  'front-left': 'Front left',
-  'front-right': 'Front right',
-  'front-centre': 'Front centre',
-  'rear-left': 'Rear left',
-  'rear-right': 'Rear right',
-  'side-left': 'Left side',
-  'side-right': 'Right side',
-};
+export const portLabels: Record<ChargePort, string> = optionMap<ChargePort>(fieldWords['vehicle.chargePort'].options, 'customer');
 
-export const wayLabels: Record<ParkingWay, string> = { 'nose-in': 'Nose in', 'reverse-in': 'Reversed in' };
+/** Port positions as staff read them. */
+export const portStaffLabels: Record<ChargePort, string> = optionMap<ChargePort>(fieldWords['vehicle.chargePort'].options, 'staff');
+
+/** The two ways of parking the reach is checked for: "Nose in", "Reversing in". */
+export const wayLabels: Record<ParkingWay, string> = optionMap<ParkingWay>(fieldWords['parking.habit'].options.filter((o) => o.value !== 'varies'), 'customer');
 
 // A figure and its unit stay on one line.
 const NBSP = '\u00a0';
 
-const wayPhrases: Record<ParkingWay, string> = { 'nose-in': 'park nose in', 'reverse-in': 'reverse in' };
+/** A way of parking after "when you …". */
+export const wayPhrases: Record<ParkingWay, string> = { 'nose-in': 'park nose in', 'reverse-in': 'reverse in' };
 
-export const sizeClassLabels: Record<Exclude<CarSizeClass, 'custom'>, string> = {
-  small: 'Small',
-  medium: 'Medium',
-  large: 'Large',
-};
+export const sizeClassLabels: Record<Exclude<CarSizeClass, 'custom'>, string> = optionMap<CarSizeClass>(fieldWords['charger.plan.car.sizeClass'].options, 'customer');
 
 /**
  * A length for reading: one decimal place, or two when one would hide which side of the cable
@@ -75,4 +74,22 @@ export function cableSentence(cable: { metres: number; source: CableSource }): s
   if (cable.source === 'tether') return `Your tethered cable: ${length} m.`;
   if (cable.source === 'tether-assumed') return `A tethered cable of ${length} m, the usual length (tell us yours in the charge point step).`;
   return `Your own charging cable, as the charge point is socketed: we’ve assumed ${length} m.`;
+}
+
+/**
+ * A charge port position in staff words, or "Not known"; never the saved id.
+ *
+ * @example portWord('side-left') // 'Left side, rear'
+ */
+export function portWord(port: unknown): string {
+  return typeof port === 'string' && port in portStaffLabels ? portStaffLabels[port as ChargePort] : 'Not known';
+}
+
+/**
+ * A way of parking in words, never the saved id.
+ *
+ * @example wayWord('reverse-in') // 'Reversing in'
+ */
+export function wayWord(way: unknown): string {
+  return typeof way === 'string' && way in wayLabels ? wayLabels[way as ParkingWay] : '—';
 }

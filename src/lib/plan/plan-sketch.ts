@@ -1,10 +1,11 @@
 // A static sketch of the customer's driveway plan for the survey pack: the same geometry as the
-// customer's drawing (src/components/plan), laid out as plain shapes so the pack page can show
+// customer's drawing (src/components/plan, geometry in src/lib/plan), laid out as plain shapes so the pack page can show
 // it as SVG and the PDF can draw it with vectors. Pure: no DOM, no React.
-import { carFootprint, type DrivewayPlan, type Point, type ReachVerdict } from '../../lib/readiness/plan';
-import type { ParkingWay } from '../../lib/readiness/types';
-import { carShape, frameFor, HOUSE_DEPTH, rectToScreen, scaleBarMetres, toScreen } from '../plan/drawing-geometry';
-import { bayName, bayRect, planToView, type ViewRect } from '../plan/plan-view';
+import { carFootprint, type DrivewayPlan, type Point, type ReachVerdict } from '@/lib/readiness/plan';
+import type { ParkingWay } from '@/lib/readiness/types';
+import { wayLabels } from '@/lib/vocabulary/plan';
+import { carShape, frameFor, HOUSE_DEPTH, rectToScreen, scaleBarMetres, toScreen } from './drawing-geometry';
+import { bayName, bayRect, planToView, type ViewRect } from './plan-view';
 
 /** The palette of tailwind.config.mjs, spelled out: the PDF and an SVG image have no classes. */
 export const sketchColours = {
@@ -51,7 +52,6 @@ export interface PlanSketch {
   caption: string;
 }
 
-const wayWords: Record<ParkingWay, string> = { 'nose-in': 'parked nose in', 'reverse-in': 'reversed in' };
 
 /**
  * The sketch for one way of parking: the wall, the bays, the car in each bay the electric car
@@ -83,7 +83,7 @@ export function planSketch(plan: DrivewayPlan, verdicts: readonly ReachVerdict[]
     { kind: 'text', x: frame.minX + frame.width - 0.3, y: maxY - 0.4, text: 'Street side', size: t * 0.9, fill: sketchColours.muted, anchor: 'end' },
   ];
   const reach = forWay.length === 0 ? 'charge port not known' : forWay.every((v) => v.reaches) ? 'the cable reaches' : 'the cable falls short';
-  return { way, ...frame, shapes, caption: `Driveway plan, car ${wayWords[way]}: ${reach}.` };
+  return { way, ...frame, shapes, caption: `Driveway plan, car ${wayLabels[way].toLowerCase()}: ${reach}.` };
 }
 
 function groundShapes(minX: number, width: number, maxY: number): SketchShape[] {

@@ -8,9 +8,9 @@ import {
   type DrivewayPlan,
   type PlanBay,
   type PlanCar,
-} from '../../lib/readiness/plan';
-import type { ChargePort } from '../../lib/readiness/types';
-import { roundTo } from '../../lib/readiness/units';
+} from '@/lib/readiness/plan';
+import type { ChargePort } from '@/lib/readiness/types';
+import { roundTo } from '@/lib/readiness/units';
 
 /** Garage or open driveway. Not yet in drivewayPlanSchema, which strips it on the server. */
 export type BayKind = 'driveway' | 'garage';

@@ -10,8 +10,8 @@ import {
   type PlanBay,
   type Point,
   type Rect,
-} from '../../lib/readiness/plan';
-import type { ParkingWay } from '../../lib/readiness/types';
+} from '@/lib/readiness/plan';
+import type { ParkingWay } from '@/lib/readiness/types';
 import { bayRect, type PlanView, type ViewRect } from './plan-view';
 
 /** Depth of the strip of house drawn above the wall, in metres. */
