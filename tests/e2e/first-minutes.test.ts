@@ -161,6 +161,7 @@ describe('step length on a phone', () => {
     ['vehicle', 'Your vehicle'],
     ['supply', 'Your meter and fuse'],
     ['fusebox', 'Your consumer unit and earthing'],
+    ['supplyphotos', 'Photos of your supply'],
     ['loads', 'Big electric loads'],
     ['parking', 'Parking'],
     ['charger', 'Charge point and cable route'],
@@ -264,10 +265,11 @@ describe('the customer’s home page', () => {
     await expect(items.count()).resolves.toBe(3);
     await expect(items.nth(0).textContent()).resolves.toContain('Your meter and fuse');
     await expect(items.nth(0).textContent()).resolves.toContain('the MPAN (the 13-digit supply number on your electricity bill)');
-    await expect(items.nth(0).textContent()).resolves.toContain('Send a photo of your electricity meter.');
     await expect(items.nth(1).textContent()).resolves.toContain('Your consumer unit and earthing');
-    await expect(items.nth(2).textContent()).resolves.toContain('Big electric loads');
-    await expect(card.getByText(/And 3 more steps with something to do/).count()).resolves.toBe(1);
+    await expect(items.nth(2).textContent()).resolves.toContain('Photos of your supply');
+    await expect(items.nth(2).textContent()).resolves.toContain('Send a photo of your electricity meter.');
+    // Still to come: the loads, parking, the charge point's place (and its photo) and which charge point.
+    await expect(card.getByText(/And 4 more steps with something to do/).count()).resolves.toBe(1);
     // The readiness in the customer's words, never an action meant for the firm.
     await card.getByTestId('home-readiness').locator('summary').click();
     const actions = await card.getByTestId('home-readiness').locator('li li').allTextContents();
