@@ -96,7 +96,8 @@ async function walk(page: Page, email: string, shots: string | null): Promise<{ 
   await page.goto('/my');
   walked.push({ page: `${email} /my`, text: await page.locator('body').innerText() });
   if (shots) await snapBoth(page, `${shots}-home`);
-  const caseIds = await page.locator('a[href^="/my/cases/"]').evaluateAll((links) => [...new Set(links.map((a) => a.getAttribute('href')!.split('/')[3]!))]);
+  // Links may go straight to a step ("/my/cases/:id#step=supply"): the case id is before the hash.
+  const caseIds = await page.locator('a[href^="/my/cases/"]').evaluateAll((links) => [...new Set(links.map((a) => a.getAttribute('href')!.split('/')[3]!.split('#')[0]!))]);
   for (const id of caseIds) {
     await page.goto(`/my/cases/${id}`);
     await waitForIslands(page);
