@@ -96,8 +96,10 @@ async function walk(page: Page, email: string, shots: string | null): Promise<{ 
   await page.goto('/my');
   walked.push({ page: `${email} /my`, text: await page.locator('body').innerText() });
   if (shots) await snapBoth(page, `${shots}-home`);
-  // Links may go straight to a step ("/my/cases/:id#step=supply"): the case id is before the hash.
-  const caseIds = await page.locator('a[href^="/my/cases/"]').evaluateAll((links) => [...new Set(links.map((a) => a.getAttribute('href')!.split('/')[3]!.split('#')[0]!))]);
+  // Links go to a case, a step of it (#step=…) or its photos: the case id is the path segment.
+  const caseIds = await page
+    .locator('a[href^="/my/cases/"]')
+    .evaluateAll((links) => [...new Set(links.map((a) => new URL(a.getAttribute('href')!, window.location.origin).pathname.split('/')[3]!))]);
   for (const id of caseIds) {
     await page.goto(`/my/cases/${id}`);
     await waitForIslands(page);

@@ -136,6 +136,10 @@ describe('photo check at upload, in Chromium', () => {
     await expect(check.textContent()).resolves.toContain('This photo is too bright: parts of it have turned white.');
     await check.scrollIntoViewIfNeeded();
     await snap(page, 'photo-check-flagged-1280');
+    await slot(page, 'consumer_unit_photo').getByRole('button', { name: 'Keep this one' }).click();
+    await check.waitFor({ state: 'detached' });
+    await expect(slot(page, 'consumer_unit_photo').getByTestId('kept-flag').textContent()).resolves.toContain('parts of it have turned white');
+    await snap(page, 'photo-check-kept-1280');
     expect(problemsOf(page)).toEqual([]);
     await context.close();
   });

@@ -10,7 +10,8 @@ export function FuseBoxStep() {
   return (
     <div className="space-y-6">
       <Caution>
-        <p>Look and take photos only: never open the consumer unit or remove its cover, and don’t touch any wires.</p>
+        <p>Look and take photos only: never open the consumer unit or remove its cover, and don’t touch any wires. {caution.consumerUnitClosed}</p>
+        <p>{caution.danger}</p>
       </Caution>
 
       <TextField

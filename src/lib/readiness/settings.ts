@@ -274,7 +274,8 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     meaning:
       'A photo whose sharpness is below this is flagged as blurred. Sharpness = variance of the Laplacian L = I(x−1,y) + I(x+1,y) + I(x,y−1) + I(x,y+1) − 4·I(x,y) over a 1024 px greyscale copy whose 1st–99th percentile of brightness is stretched to 0–255 (so darkness alone does not read as blur).',
     unit: 'variance',
-    source: `${COMMON_PRACTICE} (the threshold); the measure: variance of the Laplacian, Pech-Pacheco et al., ICPR 2000 (from memory)`,
+    // The citation is recalled from memory (see photo-quality.server.ts), not checked against the paper.
+    source: `${COMMON_PRACTICE} (the threshold); the measure: variance of the Laplacian, Pech-Pacheco et al., ICPR 2000`,
   },
   photoDarkMeanMax: {
     label: 'Too dark: mean brightness below',
@@ -330,7 +331,8 @@ const descriptions: Record<ReadinessSettingKey, Described> = {
     meaning:
       'Photos are compared by a 64-bit difference hash (dHash: the greyscale photo shrunk to 9 × 8, bit = 1 where a pixel is darker than its right neighbour). A photo within this many differing bits of one in another slot is flagged as the same photo.',
     unit: 'bits',
-    source: `${COMMON_PRACTICE} (dHash as N. Krawetz described it, 2013, from memory)`,
+    // The description is recalled from memory (see photo-quality.server.ts).
+    source: `${COMMON_PRACTICE} (the difference hash, dHash, as N. Krawetz described it, 2013)`,
   },
 };
 
