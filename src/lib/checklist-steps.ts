@@ -3,8 +3,9 @@
 // saved answers keep their section's JSON paths whatever step shows them.
 import { sectionIds, sectionProgress, type Checklist, type SectionId } from './schemas/checklist';
 
-export type StepId = 'about' | 'home' | 'vehicle' | 'supply' | 'fusebox' | 'loads' | 'parking' | 'charger' | 'chargepoint' | 'review';
-export type DataStepId = Exclude<StepId, 'review'>;
+export type StepId = 'about' | 'home' | 'vehicle' | 'supply' | 'fusebox' | 'supplyphotos' | 'loads' | 'parking' | 'charger' | 'chargepoint' | 'review';
+/** The steps that hold answers (the supply photos step and Check and send hold none). */
+export type DataStepId = Exclude<StepId, 'review' | 'supplyphotos'>;
 
 const sectionTitle = (id: SectionId) => sectionIds.find(([s]) => s === id)![1] as string;
 
@@ -12,6 +13,7 @@ const sectionTitle = (id: SectionId) => sectionIds.find(([s]) => s === id)![1] a
 const HOME_STEP_TITLE = 'Your home';
 const METER_STEP_TITLE = 'Your meter and fuse';
 const FUSEBOX_STEP_TITLE = 'Your consumer unit and earthing';
+const SUPPLY_PHOTOS_STEP_TITLE = 'Photos of your supply';
 const LOADS_STEP_TITLE = 'Big electric loads';
 const CHARGEPOINT_STEP_TITLE = 'Which charge point';
 const REVIEW_STEP_TITLE = 'Check and send';
@@ -29,9 +31,13 @@ export const dataSteps: { id: DataStepId; section: SectionId; title: string }[] 
   { id: 'chargepoint', section: 'charger', title: CHARGEPOINT_STEP_TITLE },
 ];
 
-/** Every step, the last one being "Check and send". @example checklistSteps.at(-1) // { id: 'review', title: 'Check and send' } */
+/**
+ * Every step in order: the data steps, with the supply photos (meter, cut-out, consumer unit)
+ * after the consumer unit's step, and "Check and send" last.
+ * @example checklistSteps.at(-1) // { id: 'review', title: 'Check and send' }
+ */
 export const checklistSteps: { id: StepId; title: string }[] = [
-  ...dataSteps.map(({ id, title }) => ({ id, title })),
+  ...dataSteps.flatMap(({ id, title }) => [{ id, title }, ...(id === 'fusebox' ? [{ id: 'supplyphotos' as const, title: SUPPLY_PHOTOS_STEP_TITLE }] : [])]),
   { id: 'review', title: REVIEW_STEP_TITLE },
 ];
 

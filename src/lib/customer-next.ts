@@ -3,26 +3,29 @@
 // and required uploads as the checklist, so the two never disagree.
 import type { Checklist } from './schemas/checklist';
 import type { UploadKind } from './schemas/uploads';
-import { customerGapLabel } from './vocabulary/fields';
+import { article, listWords } from './grammar';
 import { endSentence, quoted } from './punctuation';
+import { customerGapLabel } from './vocabulary/fields';
 import { requiredUploadKinds } from './readiness/checks/documents';
 import { uploadKindLabels, uploadKindStatus } from './readiness/upload-status';
 import type { ChecklistAnswers, UploadSummary } from './readiness/types';
-import { stepProgress, type DataStepId } from './checklist-steps';
+import { checklistSteps, stepProgress, stepTitle, type StepId } from './checklist-steps';
+
+type PlaceStep = Exclude<StepId, 'review'>;
 
 /** The step whose page holds each upload slot. */
-export const uploadStep: Readonly<Record<Exclude<UploadKind, 'other'>, DataStepId>> = {
-  meter_photo: 'supply',
-  cutout_photo: 'supply',
-  consumer_unit_photo: 'fusebox',
+export const uploadStep: Readonly<Record<Exclude<UploadKind, 'other'>, PlaceStep>> = {
+  meter_photo: 'supplyphotos',
+  cutout_photo: 'supplyphotos',
+  consumer_unit_photo: 'supplyphotos',
   landlord_permission: 'home',
   order_agreement: 'vehicle',
   parking_evidence: 'parking',
   charger_location_photo: 'charger',
 };
 
-export type NextThing = { step: DataStepId; stepTitle: string; text: string };
-export type CustomerNext = { done: { step: DataStepId; title: string }[]; needed: NextThing[] };
+export type NextThing = { step: PlaceStep; stepTitle: string; text: string };
+export type CustomerNext = { done: { step: PlaceStep; title: string }[]; needed: NextThing[] };
 
 const sentence = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 
@@ -35,39 +38,30 @@ const sentence = (text: string) => text.charAt(0).toUpperCase() + text.slice(1);
 export function customerNext(checklist: Checklist, prefilled: readonly string[], uploads: readonly UploadSummary[]): CustomerNext {
   const progress = stepProgress(checklist, prefilled);
   const needed: NextThing[] = [];
-  const uploadsByStep = new Map<DataStepId, NextThing[]>();
+  const uploadsByStep = new Map<PlaceStep, NextThing[]>();
   for (const kind of requiredUploadKinds(checklist as ChecklistAnswers)) {
     const status = uploadKindStatus(kind, uploads);
     if (kind === 'other') continue;
     const step = uploadStep[kind];
-    const title = progress.find((p) => p.id === step)!.title;
+    const title = stepTitle(step);
     let text: string | null = null;
-    if (status.state === 'missing') text = `Send ${withArticle(uploadKindLabels[kind])}.`;
-    if (status.state === 'rejected') text = `Send ${withArticle(uploadKindLabels[kind])} again${status.reason ? ` — your installer said: ${quoted(status.reason)}` : ''}`;
-    if (text) uploadsByStep.set(step, [...(uploadsByStep.get(step) ?? []), { step, stepTitle: title, text: endSentence(text) }]);
+    if (status.state === 'missing') text = `Send ${article(uploadKindLabels[kind])} ${uploadKindLabels[kind]}.`;
+    if (status.state === 'rejected') text = endSentence(`Send a new ${uploadKindLabels[kind]}${status.reason ? ` — your installer said: ${quoted(status.reason)}` : ''}`);
+    if (text) uploadsByStep.set(step, [...(uploadsByStep.get(step) ?? []), { step, stepTitle: title, text }]);
   }
-  for (const p of progress) {
-    const toAnswer = p.missing.filter((path) => !p.toConfirm.includes(path));
-    if (p.toConfirm.length > 0) needed.push({ step: p.id, stepTitle: p.title, text: 'Check the details your installer filled in, and confirm them.' });
-    if (toAnswer.length > 0) {
-      // One phrase covers all the load questions, so say each phrase once.
-      const words = [...new Set(toAnswer.map((path) => customerGapLabel(path)))];
-      needed.push({ step: p.id, stepTitle: p.title, text: `${sentence(`add ${listWords(words)}`)}.` });
+  for (const { id } of checklistSteps) {
+    const p = progress.find((s) => s.id === id);
+    if (p) {
+      const toAnswer = p.missing.filter((path) => !p.toConfirm.includes(path));
+      if (p.toConfirm.length > 0) needed.push({ step: p.id, stepTitle: p.title, text: 'Check the details your installer filled in, and confirm them.' });
+      if (toAnswer.length > 0) {
+        // One phrase covers all the load questions, so say each phrase once.
+        const words = [...new Set(toAnswer.map((path) => customerGapLabel(path)))];
+        needed.push({ step: p.id, stepTitle: p.title, text: endSentence(sentence(`add ${listWords(words)}`)) });
+      }
     }
-    needed.push(...(uploadsByStep.get(p.id) ?? []));
+    if (id !== 'review') needed.push(...(uploadsByStep.get(id) ?? []));
   }
   const done = progress.filter((p) => p.complete && !(uploadsByStep.get(p.id)?.length)).map((p) => ({ step: p.id, title: p.title }));
   return { done, needed };
-}
-
-/** "a, b and c". @example listWords(["a", "b", "c"]) // "a, b and c" */
-export function listWords(words: string[]): string {
-  if (words.length <= 1) return words[0] ?? '';
-  return `${words.slice(0, -1).join(', ')} and ${words.at(-1)}`;
-}
-
-/** "a photo of …", "an order agreement …", "your landlord's permission" (no article before "your" or "proof"). */
-function withArticle(label: string): string {
-  if (/^(your|proof)\b/.test(label)) return label;
-  return `${/^[aeiou]/i.test(label) ? 'an' : 'a'} ${label}`;
 }

@@ -21,21 +21,27 @@ describe('cautions where photos are asked for', () => {
       const row = await createCase(db, { customerId: user.id, addressLine1: '2 Reedbed Walk', town: 'Quillbury', postcode: 'YY2 6PW' });
       const { page } = await newPage(viewport);
       await signInByLink(page, user.email);
+      // The safety box at the top of the supply step reads the same module.
       await page.goto(`/my/cases/${row.id}#step=supply`);
       await waitForIslands(page);
+      await expect.poll(() => page.locator('#step-heading').textContent()).toBe('Your meter and fuse');
+      expect(await page.locator('main').textContent()).toContain('call 105');
+      // The supply photos have a step of their own.
+      await page.goto(`/my/cases/${row.id}#step=supplyphotos`);
+      await expect.poll(() => page.locator('#step-heading').textContent()).toBe('Photos of your supply');
       const list = page.getByTestId('step-evidence').getByTestId('photo-cautions');
       await list.waitFor();
       const items = await list.locator('li').allTextContents();
       expect(items).toEqual([...customerPhotoCautions]);
-      await expect(page.getByTestId('upload-slot-consumer_unit_photo').getByTestId('slot-caution').textContent()).resolves.toContain('with its cover closed');
       await expect(page.getByTestId('upload-slot-meter_photo').getByTestId('slot-caution').textContent()).resolves.toContain('meter cupboard door');
+      await expect(page.getByTestId('upload-slot-consumer_unit_photo').getByTestId('slot-caution').textContent()).resolves.toContain('with its cover closed');
       await expect(page.getByTestId('upload-slot-charger_location_photo').getByTestId('slot-caution').count()).resolves.toBe(0);
-      // The safety box at the top of the step and the loads' help read the same module.
-      const step = await page.locator('main').textContent();
-      expect(step).toContain('call 105');
-      expect(step).toContain('Never take the cover off an appliance to read its rating');
       await page.getByTestId('step-evidence').scrollIntoViewIfNeeded();
       await snap(page, `cautions-supply-step-${width}`);
+      // The loads' help, on the next step, reads the same module.
+      await page.getByTestId('step-next').click();
+      await expect.poll(() => page.locator('#step-heading').textContent()).toBe('Big electric loads');
+      expect(await page.locator('main').textContent()).toContain('Never take the cover off an appliance to read its rating');
       await page.goto(`/my/cases/${row.id}/photos`);
       await page.getByTestId('photo-caution').waitFor();
       await expect(page.getByTestId('photo-caution').textContent()).resolves.toContain('call 105');

@@ -141,6 +141,11 @@ describe('the customer checklist, in Chromium', () => {
     await waitSaved(page);
     await snapBoth(page, 'checklist-fusebox');
 
+    // The photos of the supply: a step of their own, with the photo cautions above the slots.
+    await nextStep(page, 'Photos of your supply');
+    await page.getByTestId('photo-cautions').waitFor();
+    await expect(page.getByTestId('step-evidence').locator('[data-testid^="upload-slot-"]').count()).resolves.toBe(3);
+
     // Step 6: the big loads (supply.loads.*).
     await nextStep(page, 'Big electric loads');
     await page.getByLabel('Electric shower rating').fill('9.5');

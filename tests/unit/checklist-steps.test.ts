@@ -14,7 +14,9 @@ describe('steps', () => {
       expect(step.section, def.path).toBe(def.path === 'vehicle.chargePort' ? 'parking' : def.section);
     }
     for (const step of dataSteps) expect(fieldDefs.some((d) => stepOfField(d.path) === step.id), step.id).toBe(true);
-    expect(checklistSteps.at(-1)).toEqual({ id: 'review', title: 'Check and send' });
+    // The photos of the supply come after the consumer unit's step, and hold no answers.
+    expect(checklistSteps.map((s) => s.id)).toEqual(['about', 'home', 'vehicle', 'supply', 'fusebox', 'supplyphotos', 'loads', 'parking', 'charger', 'chargepoint', 'review']);
+    expect(fieldDefs.some((d) => (stepOfField(d.path) as string) === 'supplyphotos')).toBe(false);
   });
 
   it('splits the supply section: meter and fuse, fuse box and earthing, big loads', () => {
@@ -59,8 +61,8 @@ describe('what’s next on the home page', () => {
     expect(next.needed[1]!.step).toBe('home');
     expect(next.needed[1]!.text).toMatch(/^Add the first line of the address, the town, the postcode, whether you own or rent the home and whether it is a house or a flat\.$/);
     const order = next.needed.find((n) => n.text.includes('order agreement'))!;
-    expect(order).toEqual({ step: 'vehicle', stepTitle: 'Your vehicle', text: 'Send an order agreement for the car again — your installer said: “The page is cut off”.' });
-    expect(next.needed.find((n) => n.text.includes('meter'))).toMatchObject({ step: 'supply', text: 'Send a photo of your electricity meter.' });
+    expect(order).toEqual({ step: 'vehicle', stepTitle: 'Your vehicle', text: 'Send a new order agreement for the car — your installer said: “The page is cut off”.' });
+    expect(next.needed.find((n) => n.text.includes('meter'))).toMatchObject({ step: 'supplyphotos', stepTitle: 'Photos of your supply', text: 'Send a photo of your electricity meter.' });
     expect(next.needed.find((n) => n.step === 'loads')!.text).toBe('Add the big electrical appliances in the home, and how many socket circuits there are.');
     expect(next.done).toEqual([]);
   });

@@ -17,7 +17,7 @@ import { StepList } from './step-list';
 import { AboutStep, HomeStep } from './step-about';
 import { VehicleStep } from './step-vehicle';
 import { SupplyStep } from './step-supply';
-import { FuseBoxStep, LoadsStep } from './step-loads';
+import { FuseBoxStep, LoadsStep, SupplyPhotosStep } from './step-loads';
 import { ParkingStep } from './step-parking';
 import { ChargePointStep, ChargerStep } from './step-charger';
 import { isSent, ReviewStep } from './step-review';
@@ -34,6 +34,7 @@ const intros: Record<StepId, string> = {
   vehicle: 'The car decides the plug and how far the cable must reach. If it hasn’t arrived yet, answer from your order.',
   supply: 'A few details about the electricity coming into your home. Most are on a bill, or can be read by looking — never touching — at the meter and cut-out.',
   fusebox: 'Where your consumer unit is, and how your supply is earthed and wired. Look only; guesses and “not sure” are fine.',
+  supplyphotos: 'A clear photo of each helps your installer plan the visit without guessing. Take them from where you stand.',
   loads: 'The big electrical appliances already in your home. Together with a charge point they decide whether your supply has room.',
   parking: 'Where the car will stand while it charges.',
   charger: 'Where you’d like the charge point and how a cable could reach it. Rough answers are fine: your installer checks everything at the survey.',
@@ -337,8 +338,9 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
                   {step === 'about' && <AboutStep caseId={view.id} />}
                   {step === 'home' && <HomeStep caseId={view.id} />}
                   {step === 'vehicle' && <VehicleStep caseId={view.id} />}
-                  {step === 'supply' && <SupplyStep caseId={view.id} />}
-                  {step === 'fusebox' && <FuseBoxStep caseId={view.id} />}
+                  {step === 'supply' && <SupplyStep />}
+                  {step === 'fusebox' && <FuseBoxStep />}
+                  {step === 'supplyphotos' && <SupplyPhotosStep caseId={view.id} />}
                   {step === 'loads' && <LoadsStep />}
                   {step === 'parking' && <ParkingStep caseId={view.id} />}
                   {step === 'charger' && <ChargerStep caseId={view.id} />}

@@ -9,7 +9,7 @@ import { checkFormValue, editsToPatch, valueAt, type Edits } from './form-values
 export type { StepId, StepProgress } from '../../lib/checklist-steps';
 export { stepFromHash, stepHash, resumeStep, stepOfField } from '../../lib/checklist-steps';
 
-/** The seven steps in order. @example steps[6] // { id: 'review', title: 'Check and send' } */
+/** Every step in order, "Check and send" last. @example steps.at(-1) // { id: 'review', title: 'Check and send' } */
 export const steps = checklistSteps;
 
 /**

@@ -7,7 +7,7 @@ import { useChecklist } from './checklist-context';
 import { fieldDefs } from './field-defs';
 import { CheckIcon } from '../icons';
 import { stepOfField, type StepId } from '../../lib/checklist-steps';
-import { listWords } from '../../lib/customer-next';
+import { listWords } from '../../lib/grammar';
 import { Note } from './notes';
 import { lazy, Suspense, useEffect, useState } from 'react';
 

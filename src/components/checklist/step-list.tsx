@@ -2,16 +2,18 @@
 // desktop. Each step says in words whether it is complete, has gaps or is not started.
 import { useState } from 'react';
 import type { StepProgress } from '../../lib/checklist-steps';
-import { CheckIcon, ChevronDownIcon, ChevronUpIcon, CircleIcon, SendIcon, WarningIcon } from '../icons';
+import { CameraIcon, CheckIcon, ChevronDownIcon, ChevronUpIcon, CircleIcon, SendIcon, WarningIcon } from '../icons';
 import { stepHash, stepState, steps, type StepId, type StepState } from './progress';
 
 type Props = { current: StepId; progress: StepProgress[]; sent: boolean };
 
-type Row = { id: StepId; title: string; state: StepState | 'review'; word: string };
+type Row = { id: StepId; title: string; state: StepState | 'review' | 'photos'; word: string };
 
 function rows({ progress, sent }: Props): Row[] {
   const allComplete = progress.every((p) => p.complete);
   return steps.map(({ id, title }) => {
+    // Photos have no answers to count: their slots say what each one needs.
+    if (id === 'supplyphotos') return { id, title, state: 'photos', word: 'Meter, cut-out and consumer unit' };
     if (id === 'review') {
       return { id, title, state: 'review', word: sent ? 'Sent' : allComplete ? 'Ready to send' : 'Not sent yet' };
     }
@@ -34,6 +36,7 @@ function StateIcon({ state }: { state: Row['state'] }) {
   if (state === 'complete') return <CheckIcon className="h-6 w-6 text-clear" />;
   if (state === 'gaps') return <WarningIcon className="h-6 w-6 text-attention" />;
   if (state === 'review') return <SendIcon className="h-6 w-6 text-ground-600" />;
+  if (state === 'photos') return <CameraIcon className="h-6 w-6 text-ground-600" />;
   return <CircleIcon className="h-6 w-6 text-ground-300" />;
 }
 
@@ -69,16 +72,16 @@ export function StepList(props: Props) {
         </div>
         <div className="mt-3 flex items-center gap-3">
           <div className="h-2 flex-1 overflow-hidden rounded-full bg-ground-100" aria-hidden="true">
-            <div className="h-full rounded-full bg-clear" style={{ width: `${(done / (steps.length - 1)) * 100}%` }} />
+            <div className="h-full rounded-full bg-clear" style={{ width: `${(done / props.progress.length) * 100}%` }} />
           </div>
           <p className="shrink-0 text-sm text-ground-700">
-            {done} of {steps.length - 1} steps complete
+            {done} of {props.progress.length} steps complete
           </p>
         </div>
       </div>
       <div className={`${open ? 'block' : 'hidden'} mt-2 lg:mt-0 lg:block`}>
         <p className="mb-2 hidden text-sm font-semibold uppercase tracking-wide text-clay-700 lg:block">
-          Your checklist · {done} of {steps.length - 1} complete
+          Your checklist · {done} of {props.progress.length} complete
         </p>
         <ol id="checklist-step-list" className="card space-y-1 p-2">
           {list.map((row, i) => {

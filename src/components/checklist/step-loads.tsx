@@ -1,12 +1,12 @@
-// Steps 4 and 5: the consumer unit, earthing and phases; then the big loads already in the home.
+// The consumer unit, earthing and phases; the photos of the supply; then the big loads already in the home.
 // Both save under supply (supply.consumerUnitLocation, supply.loads.*) as before.
 import { StepEvidence } from './step-evidence';
 import { ChoiceField, NumberField, TextField } from './fields';
 import { caution } from '../../lib/cautions';
 import { Caution, MoreHelp } from './notes';
 
-/** Step 4, Your consumer unit and earthing: where the consumer unit is, its photo, earthing and phases. */
-export function FuseBoxStep({ caseId }: { caseId: string }) {
+/** Your consumer unit and earthing: where the consumer unit is, earthing and phases. */
+export function FuseBoxStep() {
   return (
     <div className="space-y-6">
       <Caution>
@@ -45,12 +45,16 @@ export function FuseBoxStep({ caseId }: { caseId: string }) {
         </MoreHelp>
       </ChoiceField>
 
-      <StepEvidence caseId={caseId} kinds={['consumer_unit_photo']} heading="A photo of your consumer unit (photos only — never open anything)" />
     </div>
   );
 }
 
-/** Step 5, Big electric loads: what already draws a lot of power, and the socket circuits. */
+/** Photos of your supply: the meter, the cut-out and the consumer unit, with the photo cautions above them. */
+export function SupplyPhotosStep({ caseId }: { caseId: string }) {
+  return <StepEvidence caseId={caseId} kinds={['meter_photo', 'cutout_photo', 'consumer_unit_photo']} heading="Photos only — never open anything" />;
+}
+
+/** Big electric loads: what already draws a lot of power, and the socket circuits. */
 export function LoadsStep() {
   return (
     <div className="space-y-6">

@@ -1,6 +1,5 @@
-// Step 3, Your meter and fuse: the MPAN, the main fuse and a looped supply, with photos of the
-// meter and cut-out. The consumer unit, earthing and phases come next (step-loads.tsx).
-import { StepEvidence } from './step-evidence';
+// Your meter and fuse: the MPAN, the main fuse and a looped supply; photos of the
+// meter and cut-out. The consumer unit, earthing and phases come next, then the photos (step-loads.tsx).
 import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore, UNLISTED_DISTRIBUTOR } from '../../lib/validation/mpan';
 import { CheckIcon } from '../icons';
 import { useChecklist } from './checklist-context';
@@ -55,7 +54,7 @@ function MpanField() {
   );
 }
 
-export function SupplyStep({ caseId }: { caseId: string }) {
+export function SupplyStep() {
   return (
     <div className="space-y-6">
       <Caution>
@@ -97,7 +96,6 @@ export function SupplyStep({ caseId }: { caseId: string }) {
         </MoreHelp>
       </ChoiceField>
 
-      <StepEvidence caseId={caseId} kinds={['meter_photo', 'cutout_photo']} heading="Photos of your meter and cut-out (photos only — never open anything)" />
     </div>
   );
 }

@@ -2,28 +2,26 @@
 // customer's words — which part of the checklist to go back to. The checks' own `actions` are
 // written for the firm ("The installer to plan…") and never reach a customer.
 import type { CheckId, Light } from '@/lib/readiness/types';
+import { stepTitle, type StepId } from '@/lib/checklist-steps';
 
-/** Where a customer can act: a checklist step (its `#step=` id), or the photos and documents page. */
-export type CustomerActionPlace = 'about' | 'vehicle' | 'supply' | 'fusebox' | 'loads' | 'parking' | 'charger' | 'photos';
+/** Where a customer can act: a checklist step, or the photos and documents page. */
+export type CustomerActionPlace = Exclude<StepId, 'review'> | 'photos';
 
 export type CustomerAction = { place: CustomerActionPlace; text: string };
 
-// The step titles are the checklist's own (src/lib/checklist-steps.ts).
-const meter = { place: 'supply', text: 'Look again at your answers in “Your meter and fuse”.' } as const;
-const loads = { place: 'loads', text: 'Look again at your answers in “Big electric loads”.' } as const;
-const consumerUnit = { place: 'fusebox', text: 'Look again at your answers in “Your consumer unit and earthing”.' } as const;
-const charger = { place: 'charger', text: 'Look again at your answers in “Charge point and cable route”.' } as const;
+// Each names the checklist step it sends the customer to, by that step's own title.
+const lookAgain = (place: Exclude<StepId, 'review'>): CustomerAction => ({ place, text: `Look again at your answers in “${stepTitle(place)}”.` });
 const photos = { place: 'photos', text: 'Add or replace the photos and documents asked for.' } as const;
 
 const byCheck: Record<CheckId, CustomerAction[]> = {
-  'supply-identity': [{ place: 'supply', text: 'Check the MPAN (your 13-digit supply number) in “Your meter and fuse” against an electricity bill.' }],
-  'supply-headroom': [meter, loads, { place: 'photos', text: 'Send a clear photo of the cut-out, if you haven’t yet.' }],
-  'network-operator': [meter],
-  earthing: [consumerUnit, charger],
-  'cable-run': [charger],
-  'cable-reach': [{ place: 'charger', text: 'Check the driveway plan and the charging socket in “Charge point and cable route”.' }],
-  parking: [{ place: 'parking', text: 'Look again at your answers in “Parking”.' }],
-  timing: [{ place: 'vehicle', text: 'Check the expected delivery date in “Your vehicle”.' }],
+  'supply-identity': [{ place: 'supply', text: `Check the MPAN (your 13-digit supply number) in “${stepTitle('supply')}” against an electricity bill.` }],
+  'supply-headroom': [lookAgain('supply'), lookAgain('loads'), { place: 'photos', text: 'Send a clear photo of the cut-out, if you haven’t yet.' }],
+  'network-operator': [lookAgain('supply'), lookAgain('loads')],
+  earthing: [lookAgain('fusebox'), lookAgain('charger')],
+  'cable-run': [lookAgain('charger')],
+  'cable-reach': [{ place: 'chargepoint', text: `Check the driveway plan in “${stepTitle('chargepoint')}” and the charging socket in “${stepTitle('parking')}”.` }],
+  parking: [lookAgain('parking')],
+  timing: [{ place: 'vehicle', text: `Check the expected delivery date in “${stepTitle('vehicle')}”.` }],
   documents: [photos],
 };
 
