@@ -18,6 +18,8 @@ export type FieldDef = {
   label: string;
   /** What a gap here holds up, in the customer's words ("…needed for …"). */
   blocks: string;
+  /** The short help under the question. */
+  help?: string;
   options?: Option[];
   unit?: string;
 };
@@ -34,6 +36,7 @@ function field({ path, section, kind, unit, wide = [] }: FieldShape): FieldDef {
     kind,
     label: words.question,
     blocks: words.blocks,
+    ...('help' in words && typeof words.help === 'string' ? { help: words.help } : {}),
     ...(unit ? { unit } : {}),
     ...(options
       ? { options: options.map((o) => ({ value: o.value, label: o.customer, ...('hint' in o && o.hint ? { hint: o.hint } : {}), ...(wide.includes(o.value) ? { wide: true } : {}) })) }

@@ -116,13 +116,15 @@ type TextFieldProps = Common & {
 /** A labelled text input (or textarea) that saves as the customer types. */
 export function TextField(props: TextFieldProps) {
   const { path, type = 'text', normalise, onType, multiline, size = 'full' } = props;
+  // The vocabulary's help for the field, unless the step gives its own (with markup).
+  const help = props.help ?? fieldByPath[path]?.help;
   const { form, edit } = useChecklist();
   const error = useFieldError(path);
   const id = fieldId(path);
   const reg = form.register(path);
   const label = props.label ?? fieldByPath[path]?.label ?? path;
   const { prefilled } = useChecklist();
-  const described = describedBy(id, { help: props.help, error, warning: props.warning, confirmation: props.confirmation });
+  const described = describedBy(id, { help: help, error, warning: props.warning, confirmation: props.confirmation });
   const describedby = prefilled?.has(path) ? [`${id}-prefilled`, described].filter(Boolean).join(' ') : described;
 
   const onChange = (e: ChangeEvent<HTMLInputElement | HTMLTextAreaElement>) => {
@@ -156,9 +158,9 @@ export function TextField(props: TextFieldProps) {
         {label}
       </label>
       <PrefilledMark path={path} />
-      {props.help && (
+      {help && (
         <FieldHelp id={id} path={path} className="field-help mb-1.5 mt-0">
-          {props.help}
+          {help}
         </FieldHelp>
       )}
       {multiline ? (
@@ -183,22 +185,24 @@ type NumberFieldProps = Common & { integer?: boolean; placeholder?: string };
 /** A number with its unit beside it (kW, m); a decimal keypad on phones. */
 export function NumberField(props: NumberFieldProps) {
   const { path, integer } = props;
+  // The vocabulary's help for the field, unless the step gives its own (with markup).
+  const help = props.help ?? fieldByPath[path]?.help;
   const { form, edit } = useChecklist();
   const error = useFieldError(path);
   const id = fieldId(path);
   const def = fieldByPath[path];
   const reg = form.register(path);
   const label = props.label ?? def?.label ?? path;
-  const describedby = describedBy(id, { help: props.help, error });
+  const describedby = describedBy(id, { help: help, error });
 
   return (
     <div>
       <label htmlFor={id} className="field-label">
         {label}
       </label>
-      {props.help && (
+      {help && (
         <FieldHelp id={id} path={path} className="field-help mb-1.5 mt-0">
-          {props.help}
+          {help}
         </FieldHelp>
       )}
       <div className="flex max-w-[14rem] items-stretch">
@@ -248,6 +252,8 @@ type ChoiceFieldProps = Common & {
 /** A question answered by one of several cards (radio buttons); saves as soon as one is chosen. */
 export function ChoiceField(props: ChoiceFieldProps) {
   const { path, columns = 1 } = props;
+  // The vocabulary's help for the field, unless the step gives its own (with markup).
+  const help = props.help ?? fieldByPath[path]?.help;
   const { form, edit } = useChecklist();
   const error = useFieldError(path);
   const id = fieldId(path);
@@ -300,11 +306,11 @@ export function ChoiceField(props: ChoiceFieldProps) {
   );
 
   return (
-    <fieldset aria-describedby={describedBy(id, { help: props.help, error })} data-testid={id}>
+    <fieldset aria-describedby={describedBy(id, { help: help, error })} data-testid={id}>
       <legend className="field-label">{label}</legend>
-      {props.help && (
+      {help && (
         <FieldHelp id={id} path={path} className="field-help mb-2 mt-0">
-          {props.help}
+          {help}
         </FieldHelp>
       )}
       {props.aside ? (

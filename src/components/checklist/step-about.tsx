@@ -61,7 +61,6 @@ export function AboutStep({ caseId }: { caseId: string }) {
         autoComplete="email"
         autoCapitalize="none"
         spellCheck={false}
-        help="Where your installer sends updates about the job."
       />
       <TextField
         path="about.phone"
@@ -69,7 +68,6 @@ export function AboutStep({ caseId }: { caseId: string }) {
         inputMode="tel"
         autoComplete="tel"
         normalise={tidyPhone}
-        help="A mobile is best, so your installer can reach you on the day."
       />
       {/* Only after hydration: a lazy part suspending mid-hydration would leave the fields below it unwired. */}
       {hydrated && (

@@ -11,18 +11,15 @@ export function ChargerStep({ caseId }: { caseId: string }) {
       <TextField
         path="charger.location"
         multiline
-        help="For example: “front wall of the house, to the left of the door” or “inside the garage, by the up-and-over door”."
       />
       <NumberField
         path="charger.cableRunMetres"
         placeholder="e.g. 8"
-        help="From the consumer unit to that spot, following the walls rather than a straight line. A rough guess is fine; your installer will measure."
       />
       <ChoiceField path="charger.route" />
       <ChoiceField
         path="charger.softGround"
         columns={2}
-        help="Open soil, such as a lawn or a flower bed, within a few metres of the charge point. Paving, tarmac and concrete don’t count."
       >
         <MoreHelp summary="Why do you ask about soft ground?">
           <p>
@@ -51,12 +48,11 @@ export function ChargePointStep({ caseId }: { caseId: string }) {
         </MoreHelp>
       </ChoiceField>
       {preference === 'tethered' && (
-        <NumberField path="charger.tetherMetres" placeholder="e.g. 5" help="Most attached cables are about 5 m. Longer ones, such as 7.5 m or 10 m, are available." />
+        <NumberField path="charger.tetherMetres" placeholder="e.g. 5" />
       )}
       <ChoiceField
         path="charger.ratingKw"
         columns={2}
-        help="A 7.4 kW charger suits most homes and cars. If you’re not sure, choose 7.4 kW; your installer will confirm."
       />
       <div className="rounded-lg border border-ground-200 bg-ground-50 p-4" data-testid="plan-link">
         <p className="font-bold text-ground-900">Will the cable reach the car?</p>

@@ -17,12 +17,10 @@ export function FuseBoxStep() {
       <TextField
         path="supply.consumerUnitLocation"
         multiline
-        help="The consumer unit, often called the fuse box, holds your home’s switches and circuit breakers. For example: “under the stairs” or “garage, back wall”."
       />
 
       <ChoiceField
         path="supply.earthing"
-        help="How your wiring connects to earth, which is part of what keeps you safe. Your electrician will check it; tell us if you already know."
       >
         <MoreHelp summary="Where could I see which type I have?">
           <p>
@@ -34,7 +32,6 @@ export function FuseBoxStep() {
 
       <ChoiceField
         path="supply.phases"
-        help="Most homes have a single-phase supply. Chargers above 7.4 kW need three phases, so it helps to know."
       >
         <MoreHelp summary="How can I tell from the meter and the cut-out?">
           <p>
@@ -64,17 +61,16 @@ export function LoadsStep() {
           These add up with a charge point at busy times. Give 0 for anything you don’t have. A rating is usually on a label on the front or
           underside of the appliance, or in its manual. {caution.applianceRating}
         </p>
-        <NumberField path="supply.loads.showerKw" placeholder="e.g. 9.5" help="An electric shower heats its own water, usually 7 to 10.5 kW." />
-        <ChoiceField path="supply.loads.cooker" columns={2} help="An oven, hob or range that runs on electricity." />
-        <ChoiceField path="supply.loads.immersion" columns={2} help="An electric element that heats a hot-water cylinder." />
-        <NumberField path="supply.loads.heatPumpKw" placeholder="e.g. 5" help="An air- or ground-source heat pump for heating." />
-        <NumberField path="supply.loads.storageHeaters" placeholder="e.g. 6" help="All storage heaters added together, for example three of 2 kW make 6." />
+        <NumberField path="supply.loads.showerKw" placeholder="e.g. 9.5" />
+        <ChoiceField path="supply.loads.cooker" columns={2} />
+        <ChoiceField path="supply.loads.immersion" columns={2} />
+        <NumberField path="supply.loads.heatPumpKw" placeholder="e.g. 5" />
+        <NumberField path="supply.loads.storageHeaters" placeholder="e.g. 6" />
         <ChoiceField path="supply.loads.otherEvCharger" columns={2} />
         <ChoiceField path="supply.loads.solarPv" columns={2} />
         <ChoiceField
           path="supply.loads.socketCircuits"
           columns={3}
-          help="Look at the labels beside the switches in your consumer unit, or in your photo of it: count the ones marked sockets, ring or power. Don’t open anything."
         />
       </fieldset>
     </div>

@@ -10,7 +10,7 @@ export function ParkingStep({ caseId }: { caseId: string }) {
   const chargePort = useFieldValue('vehicle.chargePort');
   return (
     <div className="space-y-6">
-      <ChoiceField path="parking.kind" help="A home charge point needs parking off the road, so the cable never crosses a pavement." />
+      <ChoiceField path="parking.kind" />
       {kind === 'detached-bay' && (
         <Note>
           <p>
@@ -27,11 +27,10 @@ export function ParkingStep({ caseId }: { caseId: string }) {
           </p>
         </Note>
       )}
-      <NumberField path="parking.cars" integer placeholder="e.g. 2" help="Include the electric car. This helps us see where it will stand." />
-      <ChoiceField path="parking.habit" columns={3} help="Together with where the car’s socket is, this tells us how far the cable must reach." />
+      <NumberField path="parking.cars" integer placeholder="e.g. 2" />
+      <ChoiceField path="parking.habit" columns={3} />
       <ChoiceField
         path="vehicle.chargePort"
-        help="Left and right as you sit in the driver’s seat. This decides whether a cable reaches the car where you park."
         aside={<ChargePortPicture position={chargePort} />}
       />
       {kind === 'detached-bay' && <StepEvidence caseId={caseId} kinds={['parking_evidence']} heading="Proof of your parking space" />}

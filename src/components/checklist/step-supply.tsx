@@ -29,7 +29,6 @@ function MpanField() {
       onType={(value) => {
         if (normaliseMpanCore(value).length >= 13) void form.trigger('supply.mpanCore');
       }}
-      help="The number that identifies your home’s electricity supply. It is printed on your electricity bill. Spaces are fine."
       confirmation={
         result?.ok ? (
           <p className="flex items-center gap-2 font-semibold text-clear">
@@ -69,7 +68,6 @@ export function SupplyStep() {
       <ChoiceField
         path="supply.mainFuseAmps"
         columns={3}
-        help="The main fuse sits inside the cut-out. Its rating, in amps (A), is printed on the front of the fuse holder."
       >
         <MoreHelp summary="What is the cut-out, and how do I read it safely?">
           <p>
@@ -86,7 +84,6 @@ export function SupplyStep() {
 
       <ChoiceField
         path="supply.looped"
-        help="Some older homes, often terraces, share one supply cable with next door. Your installer needs to know, as the network operator may have to separate them first."
       >
         <MoreHelp summary="How can I tell if it’s looped?">
           <p>

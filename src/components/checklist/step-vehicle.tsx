@@ -73,7 +73,6 @@ export function VehicleStep({ caseId }: { caseId: string }) {
             spellCheck={false}
             normalise={normaliseVin}
             warning={vehicleWarning('vin', vin)}
-            help="17 letters and numbers, printed on your order form or the car’s papers. A VIN never has the letters I, O or Q."
           />
         ) : (
           <TextField
@@ -85,14 +84,13 @@ export function VehicleStep({ caseId }: { caseId: string }) {
             // A plate the vehicle records hold has been issued, whatever its age identifier suggests,
             // so the warning waits for the look-up (it starts half a second after typing stops).
             warning={awaitingRecords(lookup, registration) || lookup?.outcome.kind === 'found' ? null : vehicleWarning('registration', registration)}
-            help="The number plate, for example AB12 CDE."
             confirmation={lookup && lookup.outcome.kind !== 'off' ? <VehicleLookupNote state={lookup} /> : null}
           />
         )}
       </div>
       <div className="grid gap-6 sm:grid-cols-2">
-        <TextField path="vehicle.make" help="For example, the maker’s name on the badge." />
-        <TextField path="vehicle.model" help="As on your order or the car’s papers." />
+        <TextField path="vehicle.make" />
+        <TextField path="vehicle.model" />
       </div>
       <ChoiceField path="vehicle.condition" columns={2} />
 
@@ -100,7 +98,6 @@ export function VehicleStep({ caseId }: { caseId: string }) {
         path="vehicle.deliveryDate"
         type="date"
         size="short"
-        help="Your best guess is fine. If the car is already with you, give the day it arrived."
         confirmation={delivery ? <p className="text-ground-800">That’s {delivery}.</p> : null}
       />
       <ChoiceField path="vehicle.connector">

@@ -28,6 +28,8 @@ export type OptionWords = {
 export type FieldWords = {
   /** The question or label the customer reads on the form and in "Check and send". */
   question: string;
+  /** The short help under the question on the form, in the customer's words. */
+  help?: string;
   /** The field as something still to give, in a list ("the postcode"). */
   gap: string;
   /** What a gap here holds up, completing "needed for …"; empty for an optional field. */
@@ -70,8 +72,8 @@ const electrode = 'planning an earth rod, if one is needed';
 export const fieldWords = {
   // About you
   'about.fullName': { question: 'Full name', gap: 'your name', blocks: contact, staff: 'Name' },
-  'about.email': { question: 'E-mail address', gap: 'your e-mail address', blocks: contact, staff: 'E-mail' },
-  'about.phone': { question: 'Phone number', gap: 'a phone number', blocks: contact, staff: 'Phone' },
+  'about.email': { question: 'E-mail address', help: 'Where your installer sends updates about the job.', gap: 'your e-mail address', blocks: contact, staff: 'E-mail' },
+  'about.phone': { question: 'Phone number', help: 'A mobile is best, so your installer can reach you on the day.', gap: 'a phone number', blocks: contact, staff: 'Phone' },
   'about.addressLine1': { question: 'Address line 1', gap: 'the first line of the address', blocks: address, staff: 'Address line 1' },
   'about.addressLine2': { question: 'Address line 2 (optional)', gap: 'the second line of the address', blocks: '', staff: 'Address line 2' },
   'about.town': { question: 'Town or city', gap: 'the town', blocks: address, staff: 'Town' },
@@ -98,8 +100,8 @@ export const fieldWords = {
     ],
   },
   // Your vehicle
-  'vehicle.make': { question: 'Make', gap: 'the make of the car', blocks: 'checking the charge point suits the car', staff: 'Make' },
-  'vehicle.model': { question: 'Model', gap: 'the model of the car', blocks: 'checking the charge point suits the car', staff: 'Model' },
+  'vehicle.make': { question: 'Make', help: 'For example, the maker’s name on the badge.', gap: 'the make of the car', blocks: 'checking the charge point suits the car', staff: 'Make' },
+  'vehicle.model': { question: 'Model', help: 'As on your order or the car’s papers.', gap: 'the model of the car', blocks: 'checking the charge point suits the car', staff: 'Model' },
   'vehicle.condition': {
     question: 'Is the car new or used?',
     gap: 'whether the car is new or used',
@@ -110,10 +112,10 @@ export const fieldWords = {
       { value: 'used', customer: 'Used', hint: 'It has been registered to someone before.', staff: 'Used' },
     ],
   },
-  'vehicle.registration': { question: 'Registration number', gap: 'the registration (or the VIN if it is not registered yet)', blocks: identity, staff: 'Registration' },
-  'vehicle.vin': { question: 'Vehicle identification number (VIN)', gap: 'the VIN', blocks: identity, staff: 'VIN', trade: 'VIN' },
+  'vehicle.registration': { question: 'Registration number', help: 'The number plate, for example AB12 CDE.', gap: 'the registration (or the VIN if it is not registered yet)', blocks: identity, staff: 'Registration' },
+  'vehicle.vin': { question: 'Vehicle identification number (VIN)', help: '17 letters and numbers, printed on your order form or the car’s papers. A VIN never has the letters I, O or Q.', gap: 'the VIN', blocks: identity, staff: 'VIN', trade: 'VIN' },
   'vehicle.deliveryDate': {
-    question: 'Expected delivery date',
+    question: 'Expected delivery date', help: 'Your best guess is fine. If the car is already with you, give the day it arrived.',
     gap: 'when the car is due',
     blocks: 'planning the timing, in case the network operator must be asked first',
     staff: 'Expected delivery',
@@ -130,7 +132,7 @@ export const fieldWords = {
     ],
   },
   'vehicle.chargePort': {
-    question: 'Where is the charging socket on the car?',
+    question: 'Where is the charging socket on the car?', help: 'Left and right as you sit in the driver’s seat. This decides whether a cable reaches the car where you park.',
     gap: 'where the charging socket is on the car',
     blocks: reach,
     staff: 'Charge port on the car',
@@ -139,13 +141,14 @@ export const fieldWords = {
   // Your supply
   'supply.mpanCore': {
     question: 'MPAN, your 13-digit supply number',
+    help: 'The number that identifies your home’s electricity supply. It is printed on your electricity bill. Spaces are fine.',
     gap: 'the MPAN (the 13-digit supply number on your electricity bill)',
     blocks: 'identifying your supply and your network region',
     staff: 'MPAN core',
     trade: 'MPAN core',
   },
   'supply.mainFuseAmps': {
-    question: 'Main fuse rating on the cut-out',
+    question: 'Main fuse rating on the cut-out', help: 'The main fuse sits inside the cut-out. Its rating, in amps (A), is printed on the front of the fuse holder.',
     gap: 'the main fuse rating',
     blocks: demand,
     staff: 'Main fuse (cut-out), as read',
@@ -158,7 +161,7 @@ export const fieldWords = {
     ],
   },
   'supply.looped': {
-    question: 'Is the supply shared with a neighbour (looped)?',
+    question: 'Is the supply shared with a neighbour (looped)?', help: 'Some older homes, often terraces, share one supply cable with next door. Your installer needs to know, as the network operator may have to separate them first.',
     gap: 'whether the supply is shared (looped) with a neighbour',
     blocks: 'knowing whether the network operator must be asked first',
     staff: 'Looped supply',
@@ -170,13 +173,13 @@ export const fieldWords = {
     ],
   },
   'supply.consumerUnitLocation': {
-    question: 'Where is your consumer unit?',
+    question: 'Where is your consumer unit?', help: 'The consumer unit, often called the fuse box, holds your home’s switches and circuit breakers. For example: “under the stairs” or “garage, back wall”.',
     gap: 'where the consumer unit is',
     blocks: 'planning the cable route',
     staff: 'Consumer unit location',
   },
   'supply.earthing': {
-    question: 'How is your home earthed?',
+    question: 'How is your home earthed?', help: 'How your wiring connects to earth, which is part of what keeps you safe. Your electrician will check it; tell us if you already know.',
     gap: 'the earthing type (“I don’t know” is fine)',
     blocks: 'planning the earthing and safety devices for the charge point',
     staff: 'Earthing, as answered',
@@ -189,7 +192,7 @@ export const fieldWords = {
     ],
   },
   'supply.phases': {
-    question: 'Is your supply single phase or three phase?',
+    question: 'Is your supply single phase or three phase?', help: 'Most homes have a single-phase supply. Chargers above 7.4 kW need three phases, so it helps to know.',
     gap: 'whether the supply is single or three phase (“not sure” is fine)',
     blocks: 'knowing which charge points your supply can take',
     staff: 'Supply phases, as answered',
@@ -200,7 +203,7 @@ export const fieldWords = {
     ],
   },
   'supply.loads.socketCircuits': {
-    question: 'How many socket circuits does your consumer unit have?',
+    question: 'How many socket circuits does your consumer unit have?', help: 'Look at the labels beside the switches in your consumer unit, or in your photo of it: count the ones marked sockets, ring or power. Don’t open anything.',
     gap: 'how many socket circuits there are (“not sure” is fine)',
     blocks: demand,
     staff: 'Socket circuits (from the consumer unit labels)',
@@ -209,16 +212,16 @@ export const fieldWords = {
       { value: 'unsure', ...NOT_SURE, hint: 'That’s fine: we’ll assume a typical number and your installer will count them.' },
     ],
   },
-  'supply.loads.showerKw': { question: 'Electric shower rating', gap: 'the electric shower rating (0 if none)', blocks: demand, staff: 'Electric shower' },
-  'supply.loads.cooker': { question: 'An electric cooker, oven or hob?', gap: 'whether there is an electric cooker', blocks: demand, staff: 'Electric cooker', options: YES_NO },
-  'supply.loads.immersion': { question: 'An immersion heater for hot water?', gap: 'whether there is an immersion heater', blocks: demand, staff: 'Immersion heater', options: YES_NO },
-  'supply.loads.heatPumpKw': { question: 'Heat pump rating', gap: 'the heat pump rating (0 if none)', blocks: demand, staff: 'Heat pump' },
-  'supply.loads.storageHeaters': { question: 'Storage heaters, total rating', gap: 'the storage heaters’ total rating (0 if none)', blocks: demand, staff: 'Storage heaters (total)' },
+  'supply.loads.showerKw': { question: 'Electric shower rating', help: 'An electric shower heats its own water, usually 7 to 10.5 kW.', gap: 'the electric shower rating (0 if none)', blocks: demand, staff: 'Electric shower' },
+  'supply.loads.cooker': { question: 'An electric cooker, oven or hob?', help: 'An oven, hob or range that runs on electricity.', gap: 'whether there is an electric cooker', blocks: demand, staff: 'Electric cooker', options: YES_NO },
+  'supply.loads.immersion': { question: 'An immersion heater for hot water?', help: 'An electric element that heats a hot-water cylinder.', gap: 'whether there is an immersion heater', blocks: demand, staff: 'Immersion heater', options: YES_NO },
+  'supply.loads.heatPumpKw': { question: 'Heat pump rating', help: 'An air- or ground-source heat pump for heating.', gap: 'the heat pump rating (0 if none)', blocks: demand, staff: 'Heat pump' },
+  'supply.loads.storageHeaters': { question: 'Storage heaters, total rating', help: 'All storage heaters added together, for example three of 2 kW make 6.', gap: 'the storage heaters’ total rating (0 if none)', blocks: demand, staff: 'Storage heaters (total)' },
   'supply.loads.otherEvCharger': { question: 'Another EV charge point already?', gap: 'whether there is another charge point already', blocks: demand, staff: 'Another EV charge point', options: YES_NO },
   'supply.loads.solarPv': { question: 'Solar panels or a home battery?', gap: 'whether there are solar panels or a home battery', blocks: demand, staff: 'Solar PV or battery', options: YES_NO },
   // Parking
   'parking.kind': {
-    question: 'Where will you park to charge?',
+    question: 'Where will you park to charge?', help: 'A home charge point needs parking off the road, so the cable never crosses a pavement.',
     gap: 'where the car will park',
     blocks: 'checking the home can have a charge point: it needs off-street parking',
     staff: 'Off-street parking',
@@ -229,9 +232,9 @@ export const fieldWords = {
       { value: 'none', customer: 'I have no off-street parking', hint: 'We’ll still pass your answers on; your installer will talk you through the options.', staff: 'None' },
     ],
   },
-  'parking.cars': { question: 'How many cars park there?', gap: 'how many cars park there', blocks: reach, staff: 'Cars parked there' },
+  'parking.cars': { question: 'How many cars park there?', help: 'Include the electric car. This helps us see where it will stand.', gap: 'how many cars park there', blocks: reach, staff: 'Cars parked there' },
   'parking.habit': {
-    question: 'How do you usually park the electric car?',
+    question: 'How do you usually park the electric car?', help: 'Together with where the car’s socket is, this tells us how far the cable must reach.',
     gap: 'how the car is usually parked',
     blocks: reach,
     staff: 'Usually parked',
@@ -242,8 +245,8 @@ export const fieldWords = {
     ],
   },
   // Charge point and cable route
-  'charger.location': { question: 'Where would you like the charge point?', gap: 'where you would like the charge point', blocks: 'planning where the charge point goes', staff: 'Wanted charge point location' },
-  'charger.cableRunMetres': { question: 'Rough cable length from the consumer unit', gap: 'roughly how far the charge point is from the consumer unit', blocks: route, staff: 'Cable run, customer’s estimate' },
+  'charger.location': { question: 'Where would you like the charge point?', help: 'For example: “front wall of the house, to the left of the door” or “inside the garage, by the up-and-over door”.', gap: 'where you would like the charge point', blocks: 'planning where the charge point goes', staff: 'Wanted charge point location' },
+  'charger.cableRunMetres': { question: 'Rough cable length from the consumer unit', help: 'From the consumer unit to that spot, following the walls rather than a straight line. A rough guess is fine; your installer will measure.', gap: 'roughly how far the charge point is from the consumer unit', blocks: route, staff: 'Cable run, customer’s estimate' },
   'charger.route': {
     question: 'How could the cable get there?',
     gap: 'how a cable could get there',
@@ -256,7 +259,7 @@ export const fieldWords = {
       { value: 'buried', customer: 'Buried underground', hint: 'Under a drive, path or garden, for example to a garage.', staff: 'Buried underground' },
     ],
   },
-  'charger.softGround': { question: 'Is there soft ground near the charge point?', gap: 'whether there is soft ground near the charge point', blocks: electrode, staff: 'Soft ground for an electrode', options: YES_NO },
+  'charger.softGround': { question: 'Is there soft ground near the charge point?', help: 'Open soil, such as a lawn or a flower bed, within a few metres of the charge point. Paving, tarmac and concrete don’t count.', gap: 'whether there is soft ground near the charge point', blocks: electrode, staff: 'Soft ground for an electrode', options: YES_NO },
   'charger.softGroundMetres': { question: 'How far is the soft ground from the charge point?', gap: 'how far the soft ground is', blocks: electrode, staff: 'Distance to soft ground' },
   'charger.preference': {
     question: 'Tethered or socketed?',
@@ -268,9 +271,9 @@ export const fieldWords = {
       { value: 'socketed', customer: 'Socketed: bring your own cable', hint: 'The charge point has a socket. You plug in your own cable each time and can keep it in the car.', staff: 'Socketed' },
     ],
   },
-  'charger.tetherMetres': { question: 'Length of the attached cable', gap: 'the length of the tethered cable', blocks: reach, staff: 'Tethered cable length' },
+  'charger.tetherMetres': { question: 'Length of the attached cable', help: 'Most attached cables are about 5 m. Longer ones, such as 7.5 m or 10 m, are available.', gap: 'the length of the tethered cable', blocks: reach, staff: 'Tethered cable length' },
   'charger.ratingKw': {
-    question: 'How powerful a charge point would you like?',
+    question: 'How powerful a charge point would you like?', help: 'A 7.4 kW charger suits most homes and cars. If you’re not sure, choose 7.4 kW; your installer will confirm.',
     gap: 'how powerful a charge point you would like',
     blocks: 'choosing the cable size and checking your supply has room',
     staff: 'Charge point rating wanted',
