@@ -3,7 +3,7 @@
 // (DATABASE_URL, STORAGE_DRIVER, UPLOAD_DIR, S3_*); without DATABASE_URL it backs up the local
 // database `npm start` runs, starting it for the time of the backup when it is stopped.
 import { join } from 'node:path';
-import { uploadStorage } from '../src/lib/server/storage/index.server';
+import { uploadStorage } from '@/lib/server/storage/index.server';
 import { backup } from './lib/backup';
 import { databaseForScript } from './lib/script-database';
 

@@ -10,9 +10,9 @@ import { mkdtemp, rm, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import sharp from 'sharp';
-import { reencodePhoto } from '../src/lib/server/images.server';
-import { assessPhoto, measurePhoto, type OtherPhoto } from '../src/lib/server/photo-quality.server';
-import { defaultReadinessSettings } from '../src/lib/readiness/settings';
+import { reencodePhoto } from '@/lib/server/images.server';
+import { assessPhoto, measurePhoto, type OtherPhoto } from '@/lib/server/photo-quality.server';
+import { defaultReadinessSettings } from '@/lib/readiness/settings';
 import { demoPhotos } from '../seeds/demo';
 
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 9);

@@ -11,7 +11,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import sharp from 'sharp';
-import { reencodePhoto } from '../src/lib/server/images.server';
+import { reencodePhoto } from '@/lib/server/images.server';
 
 const ROUNDS = Number(process.env.BENCH_ROUNDS ?? 7);
 const dir = await mkdtemp(join(tmpdir(), 'groundwork-photo-'));

@@ -2,7 +2,7 @@
 // and an EMPTY file store, chosen by the same variables as the app (DATABASE_URL,
 // STORAGE_DRIVER, UPLOAD_DIR, S3_*). It refuses, changing nothing, when either holds data.
 import { resolve } from 'node:path';
-import { uploadStorage } from '../src/lib/server/storage/index.server';
+import { uploadStorage } from '@/lib/server/storage/index.server';
 import { restore } from './lib/backup';
 import { databaseForScript } from './lib/script-database';
 

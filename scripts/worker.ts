@@ -1,10 +1,10 @@
 // The background worker: automatic reminders, readiness recomputes and the storage sweep on the
 // PostgreSQL job queue. Started by `npm start` (and `npm test`) next to the app; any number may
 // run at once. Stops cleanly on SIGINT/SIGTERM.
-import { startWorkerBoss } from '../src/lib/server/jobs.server';
-import { workReadinessRecompute } from '../src/lib/server/readiness.server';
-import { startReminderWorker } from '../src/lib/server/reminders.server';
-import { startStorageSweep } from '../src/lib/server/storage-sweep.server';
+import { startWorkerBoss } from '@/lib/server/jobs.server';
+import { workReadinessRecompute } from '@/lib/server/readiness.server';
+import { startReminderWorker } from '@/lib/server/reminders.server';
+import { startStorageSweep } from '@/lib/server/storage-sweep.server';
 
 // Started while PostgreSQL is down (or restarting), keep trying rather than exit: once running,
 // pg-boss reconnects by itself, and starting should be no less patient.

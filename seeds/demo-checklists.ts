@@ -19,7 +19,7 @@
 //   when the vehicle records hold the plate (a plate on record has been issued): the demo plates
 //   are in the look-up fake's fleet, and the seed stores each case's look-up as the vehicle step
 //   would, so the demo shows no warning on the customer's step or the office page.
-import { mpanCheckDigit } from '../src/lib/validation/mpan';
+import { mpanCheckDigit } from '@/lib/validation/mpan';
 
 /** A valid MPAN core for a distributor ID and ten further digits (check digit worked out). */
 export function demoMpan(distributorId: string, ten: string): string {

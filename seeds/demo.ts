@@ -19,12 +19,12 @@ import {
   tannersChecklist,
   wheelwrightChecklist,
 } from './demo-checklists';
-import { caseNotes, cases, caseVehicleLookups, settings, uploads, type CaseRow, type UploadRow } from '../src/db/schema';
-import { uploadLimits } from '../src/lib/schemas/uploads';
-import { readSiteMeasures } from '../src/lib/schemas/outcome';
-import { uploadStorage } from '../src/lib/server/storage/index.server';
-import { assessPhoto, measurePhoto, type Measured, type OtherPhoto } from '../src/lib/server/photo-quality.server';
-import { defaultReadinessSettings } from '../src/lib/readiness/settings';
+import { caseNotes, cases, caseVehicleLookups, settings, uploads, type CaseRow, type UploadRow } from '@/db/schema';
+import { uploadLimits } from '@/lib/schemas/uploads';
+import { readSiteMeasures } from '@/lib/schemas/outcome';
+import { uploadStorage } from '@/lib/server/storage/index.server';
+import { assessPhoto, measurePhoto, type Measured, type OtherPhoto } from '@/lib/server/photo-quality.server';
+import { defaultReadinessSettings } from '@/lib/readiness/settings';
 
 type Db = PostgresJsDatabase<Record<string, unknown>>;
 

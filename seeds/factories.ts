@@ -2,11 +2,11 @@
 import bcrypt from 'bcryptjs';
 import { eq } from 'drizzle-orm';
 import type { PostgresJsDatabase } from 'drizzle-orm/postgres-js';
-import { auditLog, cases, users, type Role, type Stage } from '../src/db/schema';
-import { newCaseReference } from '../src/lib/case-reference';
-import { refreshSearchTextSql } from '../src/db/search-text';
-import { runChecks, type ChecklistAnswers, type SiteMeasures, type UploadSummary } from '../src/lib/readiness';
-import { lightRank } from '../src/lib/readiness/lights';
+import { auditLog, cases, users, type Role, type Stage } from '@/db/schema';
+import { newCaseReference } from '@/lib/case-reference';
+import { refreshSearchTextSql } from '@/db/search-text';
+import { runChecks, type ChecklistAnswers, type SiteMeasures, type UploadSummary } from '@/lib/readiness';
+import { lightRank } from '@/lib/readiness/lights';
 
 const today = () => new Date().toISOString().slice(0, 10);
 

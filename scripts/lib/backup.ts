@@ -9,7 +9,7 @@ import { tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
 import { pipeline } from 'node:stream/promises';
 import postgres from 'postgres';
-import type { Storage } from '../../src/lib/server/storage/storage';
+import type { Storage } from '@/lib/server/storage/storage';
 import { findPgBin } from './postgres.mjs';
 
 export type Manifest = {

@@ -8,8 +8,8 @@ import {
   signInErrorMessages,
   type LinkSignIn,
   type PasswordSignIn,
-} from '../lib/schemas/sign-in';
-import { safeCallbackPath } from '../lib/safe-redirect';
+} from '@/lib/schemas/sign-in';
+import { safeCallbackPath } from '@/lib/safe-redirect';
 
 type Props = { initialError?: string | null; callbackUrl?: string };
 

@@ -9,7 +9,7 @@ import { db, schema } from '../helpers/db';
 import { waitForMessage } from '../helpers/mail';
 import { newStaff } from '../helpers/people';
 import { createCase, createUser } from '../../seeds/factories';
-import { customerPhotoCautions } from '../../src/lib/cautions';
+import { customerPhotoCautions } from '@/lib/cautions';
 import { demoHomes, demoPlates } from '../../seeds/demo-checklists';
 
 afterAll(close);

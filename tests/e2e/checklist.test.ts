@@ -318,11 +318,13 @@ describe('the customer checklist, in Chromium', () => {
     expect(problemsOf(page).filter((p) => !offlineNoise(p))).toEqual([]);
 
     // Saves fail, then the tab is closed: the answer waits in this browser and is sent next visit.
-    await context.route('**/api/cases/*/checklist', (route) => route.abort('internetdisconnected'));
+    // Offline for the whole context, so the last-chance save sent as the tab closes fails too
+    // (a route on the page does not always catch that one).
+    await context.setOffline(true);
     await page.getByRole('radio', { name: 'Nose in' }).check();
     await expect.poll(() => status(page), { timeout: 10_000 }).toMatch(/^Not saved — retrying/);
     await page.close();
-    await context.unroute('**/api/cases/*/checklist');
+    await context.setOffline(false);
     expect((await savedRow(theCase.id)).checklist).toEqual({ parking: { kind: 'garage', cars: 1 } });
     const again = await context.newPage();
     await again.goto(`/my/cases/${theCase.id}#step=parking`);

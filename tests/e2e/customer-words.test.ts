@@ -13,11 +13,11 @@ import { newStaff } from '../helpers/people';
 import type { Client } from '../helpers/http';
 import { createCase, createUser } from '../../seeds/factories';
 import { eq } from 'drizzle-orm';
-import { steps } from '../../src/components/checklist/progress';
-import { fieldWords } from '../../src/lib/vocabulary/fields';
-import { customerStage, stageLabels } from '../../src/lib/vocabulary/stages';
-import { stages, type StageId } from '../../src/lib/stages';
-import { uploadKinds } from '../../src/lib/schemas/uploads';
+import { steps } from '@/components/checklist/progress';
+import { fieldWords } from '@/lib/vocabulary/fields';
+import { customerStage, stageLabels } from '@/lib/vocabulary/stages';
+import { stages, type StageId } from '@/lib/stages';
+import { uploadKinds } from '@/lib/schemas/uploads';
 
 afterAll(close);
 

@@ -3,7 +3,7 @@ import { eq } from 'drizzle-orm';
 import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
-import { drivewayPlanSchema } from '../../src/lib/readiness/plan';
+import { drivewayPlanSchema } from '@/lib/readiness/plan';
 import type { Page } from 'playwright-core';
 
 afterAll(close);

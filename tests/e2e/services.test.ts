@@ -8,7 +8,7 @@ import { close, DESKTOP, newPage, PHONE, problemsOf, snap, signInByLink, waitFor
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 import { textsTo, uniqueMobile, until } from '../helpers/services';
-import { sendReminder } from '../../src/lib/server/reminders.server';
+import { sendReminder } from '@/lib/server/reminders.server';
 
 afterAll(close);
 

@@ -11,8 +11,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import postgres from 'postgres';
 import { CreateBucketCommand, S3Client } from '@aws-sdk/client-s3';
 import { sql as original } from '../helpers/db';
-import { LocalDiskStorage } from '../../src/lib/server/storage/local-disk.server';
-import { S3Storage } from '../../src/lib/server/storage/s3.server';
+import { LocalDiskStorage } from '@/lib/server/storage/local-disk.server';
+import { S3Storage } from '@/lib/server/storage/s3.server';
 
 const run = promisify(execFile);
 const tsx = join(process.cwd(), 'node_modules', '.bin', 'tsx');

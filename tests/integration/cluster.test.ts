@@ -14,7 +14,7 @@ import { db, schema } from '../helpers/db';
 import { TEST_PASSWORD, signInWithLink } from '../helpers/people';
 import { createCase, createUser } from '../../seeds/factories';
 import { smallImage } from '../fixtures/uploads';
-import { S3Storage } from '../../src/lib/server/storage/s3.server';
+import { S3Storage } from '@/lib/server/storage/s3.server';
 import { ensureHaproxy, writeHaproxyConfig } from '../../scripts/lib/haproxy.mjs';
 
 const freePort = () =>

@@ -13,8 +13,8 @@ import PgBoss from 'pg-boss';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ensureCluster, findPgBin, startCluster, stopCluster, usableDataDir } from '../../scripts/lib/postgres.mjs';
 import { migrate, root } from '../../scripts/lib/stack.mjs';
-import * as schema from '../../src/db/schema';
-import { SWEEP_QUEUE } from '../../src/lib/server/reminders.server';
+import * as schema from '@/db/schema';
+import { SWEEP_QUEUE } from '@/lib/server/reminders.server';
 import { newCustomer } from '../helpers/people';
 import { createCase } from '../../seeds/factories';
 

@@ -6,7 +6,7 @@ import postgres from 'postgres';
 import { drizzle } from 'drizzle-orm/postgres-js';
 import { sql as raw } from 'drizzle-orm';
 import { afterAll, describe, expect, it } from 'vitest';
-import { isDatabaseUnavailable } from '../../src/lib/server/db-errors.server';
+import { isDatabaseUnavailable } from '@/lib/server/db-errors.server';
 
 const url = process.env.DATABASE_URL!;
 const client = postgres(url, { max: 1, onnotice: () => {}, connection: { statement_timeout: 100 } as any });

@@ -10,8 +10,8 @@ import { db, schema, sql } from '../helpers/db';
 import { messagesTo, waitForMessage, type Message } from '../helpers/mail';
 import { newStaff } from '../helpers/people';
 import { smallImage } from '../fixtures/uploads';
-import { sendReminder } from '../../src/lib/server/reminders.server';
-import { REDACTED_LINK } from '../../src/lib/server/case-mail.server';
+import { sendReminder } from '@/lib/server/reminders.server';
+import { REDACTED_LINK } from '@/lib/server/case-mail.server';
 
 /** Every query-string value long enough to be a secret, from every link in a message. */
 function secretsIn(message: Message): string[] {

@@ -9,8 +9,8 @@ import { db, schema } from '../helpers/db';
 import { messagesTo, waitForMessage, type Message } from '../helpers/mail';
 import { newStaff } from '../helpers/people';
 import { smallImage } from '../fixtures/uploads';
-import { REDACTED_LINK } from '../../src/lib/server/case-mail.server';
-import { customerPhotoCautions } from '../../src/lib/cautions';
+import { REDACTED_LINK } from '@/lib/server/case-mail.server';
+import { customerPhotoCautions } from '@/lib/cautions';
 
 const decode = (s: string) => s.replace(/&(amp|lt|gt|quot|#39);/g, (_, e: string) => ({ amp: '&', lt: '<', gt: '>', quot: '"', '#39': "'" })[e]!);
 const htmlText = (html: string) => decode(html.replace(/<head>[\s\S]*?<\/head>/i, '').replace(/<[^>]+>/g, ' '));

@@ -7,8 +7,8 @@ import { db, reminderOnlyFor, schema, sql } from '../helpers/db';
 import { messagesTo } from '../helpers/mail';
 import { newStaff } from '../helpers/people';
 import { createCase, createUser } from '../../seeds/factories';
-import { RECOMPUTE_QUEUE, SEND_QUEUE, SWEEP_QUEUE, ensureQueues, startWorkerBoss } from '../../src/lib/server/jobs.server';
-import { sendReminder, sweepReminders } from '../../src/lib/server/reminders.server';
+import { RECOMPUTE_QUEUE, SEND_QUEUE, SWEEP_QUEUE, ensureQueues, startWorkerBoss } from '@/lib/server/jobs.server';
+import { sendReminder, sweepReminders } from '@/lib/server/reminders.server';
 
 const noonGb = () => {
   const d = new Date();

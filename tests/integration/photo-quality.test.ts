@@ -11,7 +11,7 @@ import { db, schema } from '../helpers/db';
 import { newStaff, signInWithLink } from '../helpers/people';
 import { messagesTo, waitForMessage } from '../helpers/mail';
 import { createCase, createUser } from '../../seeds/factories';
-import { rejectionWords } from '../../src/lib/photo-quality';
+import { rejectionWords } from '@/lib/photo-quality';
 import { sharpPhoto, spoil } from '../fixtures/photo-quality';
 import { tinyPdf } from '../fixtures/uploads';
 

@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { eq, like } from 'drizzle-orm';
 import { db, schema } from '../helpers/db';
-import { RateLimiter, pruneRateLimits } from '../../src/lib/server/rate-limit.server';
+import { RateLimiter, pruneRateLimits } from '@/lib/server/rate-limit.server';
 
 const unique = () => `t${Date.now()}-${Math.random().toString(36).slice(2, 8)}`;
 

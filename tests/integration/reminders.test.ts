@@ -3,7 +3,7 @@ import { eq } from 'drizzle-orm';
 import { db, reminderOnlyFor, schema } from '../helpers/db';
 import { messagesTo } from '../helpers/mail';
 import { createCase, createUser } from '../../seeds/factories';
-import { casesDueReminder, hourInGb, sendReminder, startReminderWorker, SEND_QUEUE } from '../../src/lib/server/reminders.server';
+import { casesDueReminder, hourInGb, sendReminder, startReminderWorker, SEND_QUEUE } from '@/lib/server/reminders.server';
 
 // Noon in Great Britain today: inside the default 09:00–19:00 window whatever time the test runs.
 const noonGb = () => {

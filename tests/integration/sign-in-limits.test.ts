@@ -8,7 +8,7 @@ import { db, schema } from '../helpers/db';
 import { messagesTo } from '../helpers/mail';
 import { createUser } from '../../seeds/factories';
 import { TEST_PASSWORD } from '../helpers/people';
-import { signInLimits } from '../../src/lib/server/rate-limit.server';
+import { signInLimits } from '@/lib/server/rate-limit.server';
 
 const PASSWORD = '/api/auth/callback/credentials';
 const LINK = '/api/auth/signin/nodemailer';

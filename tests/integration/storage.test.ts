@@ -7,9 +7,9 @@ import { join } from 'node:path';
 import type { Readable } from 'node:stream';
 import { afterAll, describe, expect, it, vi } from 'vitest';
 import { S3Client } from '@aws-sdk/client-s3';
-import { LocalDiskStorage } from '../../src/lib/server/storage/local-disk.server';
-import { S3Storage } from '../../src/lib/server/storage/s3.server';
-import type { Storage } from '../../src/lib/server/storage/storage';
+import { LocalDiskStorage } from '@/lib/server/storage/local-disk.server';
+import { S3Storage } from '@/lib/server/storage/s3.server';
+import type { Storage } from '@/lib/server/storage/storage';
 
 const MIB = 1024 * 1024;
 const s3Settings = () => {

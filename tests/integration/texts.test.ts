@@ -5,9 +5,9 @@ import { db, schema } from '../helpers/db';
 import { messagesTo } from '../helpers/mail';
 import { newCustomer, newStaff } from '../helpers/people';
 import { receiptFor, replyFrom, textsTo, uniqueMobile, until } from '../helpers/services';
-import { sendReminder } from '../../src/lib/server/reminders.server';
-import { chaseCase } from '../../src/lib/server/chase.server';
-import { sendCaseText } from '../../src/lib/server/text-messages.server';
+import { sendReminder } from '@/lib/server/reminders.server';
+import { chaseCase } from '@/lib/server/chase.server';
+import { sendCaseText } from '@/lib/server/text-messages.server';
 import { signParams } from '../../fake-services/sms-server.mjs';
 
 // Against the fake SMS service (fake-services/sms-server.mjs), which speaks the provider's REST

@@ -9,7 +9,7 @@ import { Client } from '../helpers/http';
 import { db, schema } from '../helpers/db';
 import { newCustomer, newStaff } from '../helpers/people';
 import { smallImage, tinyPdf } from '../fixtures/uploads';
-import { uploadLimits } from '../../src/lib/schemas/uploads';
+import { uploadLimits } from '@/lib/schemas/uploads';
 
 const uploadDir = resolve(process.env.UPLOAD_DIR ?? '');
 

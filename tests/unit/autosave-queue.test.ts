@@ -2,8 +2,8 @@
 // sequences a phone meets. Each expected outcome follows from the contract stated in
 // autosave-queue.ts ("only forgotten once the server has that exact value"), not from its code.
 import { describe, expect, it } from 'vitest';
-import { AutosaveQueue, type QueueListener, type SaveStatus } from '../../src/components/checklist/autosave-queue';
-import type { CaseView, PatchOutcome } from '../../src/components/checklist/api-client';
+import { AutosaveQueue, type QueueListener, type SaveStatus } from '@/components/checklist/autosave-queue';
+import type { CaseView, PatchOutcome } from '@/components/checklist/api-client';
 
 const view = (version: number, checklist: Record<string, unknown> = {}): CaseView =>
   ({ id: 'c1', reference: 'GW-TEST', stage: 'filling_in', version, checklist, progress: [], warnings: {}, region: null, editable: true, updatedAt: '' }) as CaseView;

@@ -12,8 +12,8 @@ import {
   supplyPatchSchema,
   zodIssuesToFields,
   checklistConflicts,
-} from '../../src/lib/schemas/checklist';
-import { VIN_CHECK_DIGIT_WARNING } from '../../src/lib/validation/vin';
+} from '@/lib/schemas/checklist';
+import { VIN_CHECK_DIGIT_WARNING } from '@/lib/validation/vin';
 
 // The data model and its rules come from Groundwork issue 3 ("The customer's checklist"); the
 // validated fields rest on the sources named in the validators' own tests. All people,

@@ -2,10 +2,10 @@
 // section, progress per step (details from the invitation count as "to check"), and the home
 // page's "what's next" list. The rules are this product's own (no published source).
 import { describe, expect, it } from 'vitest';
-import { checklistSteps, dataSteps, resumeStep, stepFromHash, stepOfField, stepProgress } from '../../src/lib/checklist-steps';
-import { customerNext } from '../../src/lib/customer-next';
-import { fieldDefs } from '../../src/components/checklist/field-defs';
-import { sectionProgress } from '../../src/lib/schemas/checklist';
+import { checklistSteps, dataSteps, resumeStep, stepFromHash, stepOfField, stepProgress } from '@/lib/checklist-steps';
+import { customerNext } from '@/lib/customer-next';
+import { fieldDefs } from '@/components/checklist/field-defs';
+import { sectionProgress } from '@/lib/schemas/checklist';
 
 describe('steps', () => {
   it('puts every field on one step of its own section (the car’s socket beside parking aside), and every step shows at least one field', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { clientAddressOf, trustedProxies } from '../../src/lib/server/request-context.server';
+import { clientAddressOf, trustedProxies } from '@/lib/server/request-context.server';
 
 // X-Forwarded-For: each proxy appends the address it received the request from, so only the
 // entries added by proxies we trust can be believed; the right-most untrusted entry is the client

@@ -14,12 +14,12 @@ import {
   wheelwrightChecklist,
 } from '../../seeds/demo-checklists';
 import { FLEET } from '../../fake-services/vehicle-enquiry-server.mjs';
-import { checkMpanCore, mpanRegions } from '../../src/lib/validation/mpan';
-import { checkPostcode } from '../../src/lib/validation/postcode';
-import { ageIdentifierStart, checkRegistration } from '../../src/lib/validation/registration';
-import { checkVin } from '../../src/lib/validation/vin';
-import { fieldWarnings } from '../../src/lib/schemas/checklist';
-import { officeWarnings } from '../../src/components/office/case-answers';
+import { checkMpanCore, mpanRegions } from '@/lib/validation/mpan';
+import { checkPostcode } from '@/lib/validation/postcode';
+import { ageIdentifierStart, checkRegistration } from '@/lib/validation/registration';
+import { checkVin } from '@/lib/validation/vin';
+import { fieldWarnings } from '@/lib/schemas/checklist';
+import { officeWarnings } from '@/components/office/case-answers';
 
 // The demo must be all invented: no real postcode district, no supply number from the wrong
 // region, no maker's published VIN, no plate that could be on a real car today.

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { chandlersChecklist, forgeChecklist, heronChecklist } from '../../seeds/demo-checklists';
-import { runChecks, type ChecklistAnswers, type Light, type SiteMeasures, type UploadSummary } from '../../src/lib/readiness';
+import { runChecks, type ChecklistAnswers, type Light, type SiteMeasures, type UploadSummary } from '@/lib/readiness';
 
 // The demo seed should show the office a spread of lights under the readiness rules. The
 // expected lights are worked by hand from the same sources as the checks' own tests.

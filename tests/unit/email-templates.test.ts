@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import * as templates from '../../src/lib/server/email-templates.server';
-import { customerPhotoCautions } from '../../src/lib/cautions';
-import { customerGaps } from '../../src/lib/gaps';
-import { endSentence } from '../../src/lib/punctuation';
+import * as templates from '@/lib/server/email-templates.server';
+import { customerPhotoCautions } from '@/lib/cautions';
+import { customerGaps } from '@/lib/gaps';
+import { endSentence } from '@/lib/punctuation';
 
 // Every e-mail goes as HTML and as plain text (nodemailer `html` + `text`), and a reader of either
 // must get the same words in the same order: the HTML part may add only styling, and the text

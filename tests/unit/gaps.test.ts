@@ -2,7 +2,7 @@
 // follows the sound of the next word — English usage), items joined with "and", the appliances
 // asked as one, and each field in the customer's words from the vocabulary.
 import { describe, expect, it } from 'vitest';
-import { customerGaps } from '../../src/lib/gaps';
+import { customerGaps } from '@/lib/gaps';
 
 describe('customerGaps', () => {
   it('asks for an order agreement with “an”, and for a meter photo with “a”', () => {

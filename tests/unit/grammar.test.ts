@@ -3,7 +3,7 @@
 // choice follows the sound of the next word, as English usage guides put it (e.g. "an hour",
 // "a user", "an MPAN"); the lists below are worked by reading each word aloud.
 import { describe, expect, it } from 'vitest';
-import { article, countOf, listWords, plural, withArticle } from '../../src/lib/grammar';
+import { article, countOf, listWords, plural, withArticle } from '@/lib/grammar';
 
 describe('article', () => {
   it.each([

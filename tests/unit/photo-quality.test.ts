@@ -14,9 +14,9 @@ import {
   laplacianVariance,
   measurePhoto,
   type Measured,
-} from '../../src/lib/server/photo-quality.server';
-import { defaultReadinessSettings, resolveReadinessSettings } from '../../src/lib/readiness/settings';
-import { rejectionWords } from '../../src/lib/photo-quality';
+} from '@/lib/server/photo-quality.server';
+import { defaultReadinessSettings, resolveReadinessSettings } from '@/lib/readiness/settings';
+import { rejectionWords } from '@/lib/photo-quality';
 import { sharpPhoto, spoil } from '../fixtures/photo-quality';
 
 const settings = defaultReadinessSettings;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkCableReach, cableForReach } from '../../src/lib/readiness/checks/cable-reach';
+import { checkCableReach, cableForReach } from '@/lib/readiness/checks/cable-reach';
 import {
   cablePath,
   carFootprint,
@@ -11,9 +11,9 @@ import {
   reachVerdict,
   type DrivewayPlan,
   type PlanBay,
-} from '../../src/lib/readiness/plan';
-import { defaultReadinessSettings, resolveReadinessSettings } from '../../src/lib/readiness/settings';
-import type { ChargePort, ChargerAnswers, ParkingHabit, ParkingWay } from '../../src/lib/readiness';
+} from '@/lib/readiness/plan';
+import { defaultReadinessSettings, resolveReadinessSettings } from '@/lib/readiness/settings';
+import type { ChargePort, ChargerAnswers, ParkingHabit, ParkingWay } from '@/lib/readiness';
 
 // Geometry worked by hand. Plan convention: wall along y = 0, y away from the house, x to the
 // right of someone at the wall looking out. Car "left" is the driver's left. Car sizes are from

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { CABLE_SIZES, TABLE_4E4B_25MM2 } from '../../src/lib/readiness/cable-tables';
-import { cableDesign, cableSizeRows, checkCableRun, recommendedCsaMm2, type CableSizeRow, type CorrectionFactor } from '../../src/lib/readiness/checks/cable-run';
-import { resolveReadinessSettings } from '../../src/lib/readiness/settings';
-import type { CableRoute, ChecklistAnswers, ReadinessSettingsInput } from '../../src/lib/readiness';
+import { CABLE_SIZES, TABLE_4E4B_25MM2 } from '@/lib/readiness/cable-tables';
+import { cableDesign, cableSizeRows, checkCableRun, recommendedCsaMm2, type CableSizeRow, type CorrectionFactor } from '@/lib/readiness/checks/cable-run';
+import { resolveReadinessSettings } from '@/lib/readiness/settings';
+import type { CableRoute, ChecklistAnswers, ReadinessSettingsInput } from '@/lib/readiness';
 
 // Sizing rule: Ib ≤ In ≤ Iz (BS 7671:2018+A2:2022 Regulation 433.1.1). Iz is the tabulated
 // capacity It times the correction factors for the route. Terminals are taken at 70 °C unless

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { checkDocuments, requiredUploadKinds } from '../../src/lib/readiness/checks/documents';
-import { defaultReadinessSettings } from '../../src/lib/readiness/settings';
-import type { ChecklistAnswers, UploadKind, UploadSummary } from '../../src/lib/readiness';
+import { checkDocuments, requiredUploadKinds } from '@/lib/readiness/checks/documents';
+import { defaultReadinessSettings } from '@/lib/readiness/settings';
+import type { ChecklistAnswers, UploadKind, UploadSummary } from '@/lib/readiness';
 
 // What the office needs before a survey (common practice, no published source): four photos
 // always; the order agreement for a new car; parking evidence for a detached bay; the

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { checkEarthing, electrodeGround, electrodeTest } from '../../src/lib/readiness/checks/earthing';
-import { defaultReadinessSettings } from '../../src/lib/readiness/settings';
-import type { Earthing, ParkingKind, SiteMeasures } from '../../src/lib/readiness';
+import { checkEarthing, electrodeGround, electrodeTest } from '@/lib/readiness/checks/earthing';
+import { defaultReadinessSettings } from '@/lib/readiness/settings';
+import type { Earthing, ParkingKind, SiteMeasures } from '@/lib/readiness';
 
 // BS 7671:2018+A2:2022 722.411.4.1: PME not to be used for an outdoor charging point unless a
 // listed measure applies (earth electrode keeping ≤ 70 V on a broken PEN, a device disconnecting

@@ -10,7 +10,7 @@ import {
   type DrivewayPlan,
   type Light,
   type UploadSummary,
-} from '../../src/lib/readiness';
+} from '@/lib/readiness';
 
 const TODAY = '2025-03-03';
 

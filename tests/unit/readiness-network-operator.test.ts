@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { checkNetworkOperator } from '../../src/lib/readiness/checks/network-operator';
-import { decideNetworkRoute } from '../../src/lib/readiness/network-route';
-import { resolveReadinessSettings } from '../../src/lib/readiness/settings';
-import type { ChecklistAnswers, FuseRating, LoadAnswers, Looped, ReadinessSettingsInput, SiteMeasures, SupplyPhases } from '../../src/lib/readiness';
+import { checkNetworkOperator } from '@/lib/readiness/checks/network-operator';
+import { decideNetworkRoute } from '@/lib/readiness/network-route';
+import { resolveReadinessSettings } from '@/lib/readiness/settings';
+import type { ChecklistAnswers, FuseRating, LoadAnswers, Looped, ReadinessSettingsInput, SiteMeasures, SupplyPhases } from '@/lib/readiness';
 
 // Energy Networks Association, "Connecting electric vehicles and heat pumps" and its application
 // form: where every notification criterion is met, install and notify within 28 days ("Connect &

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { checkParking } from '../../src/lib/readiness/checks/parking';
-import { defaultReadinessSettings } from '../../src/lib/readiness/settings';
-import type { ParkingKind, UploadSummary } from '../../src/lib/readiness';
+import { checkParking } from '@/lib/readiness/checks/parking';
+import { defaultReadinessSettings } from '@/lib/readiness/settings';
+import type { ParkingKind, UploadSummary } from '@/lib/readiness';
 
 // Private off-street parking is needed for a home charge point; a bay not attached to the home
 // needs evidence (common practice, no published source; funding schemes set their own rules).

@@ -6,9 +6,9 @@ import {
   type ChecklistAnswers,
   type SiteMeasures,
   type UploadSummary,
-} from '../../src/lib/readiness';
-import { networkRouteNames } from '../../src/lib/readiness/network-route';
-import { packCautions } from '../../src/lib/cautions';
+} from '@/lib/readiness';
+import { networkRouteNames } from '@/lib/readiness/network-route';
+import { packCautions } from '@/lib/cautions';
 import { chandlersChecklist, forgeChecklist, heronChecklist } from '../../seeds/demo-checklists';
 
 // Staff read every check's title, staff text, figures, actions and source, the settings page's

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkSupplyHeadroom } from '../../src/lib/readiness/checks/supply-headroom';
+import { checkSupplyHeadroom } from '@/lib/readiness/checks/supply-headroom';
 import {
   assessMaximumDemand,
   cookerAllowanceAmps,
@@ -7,9 +7,9 @@ import {
   showerAllowanceAmps,
   socketAllowanceAmps,
   type DemandItem,
-} from '../../src/lib/readiness/demand';
-import { defaultReadinessSettings, resolveReadinessSettings } from '../../src/lib/readiness/settings';
-import type { ChecklistAnswers, FuseRating, LoadAnswers, ReadinessSettingsInput, SiteMeasures, SupplyPhases } from '../../src/lib/readiness';
+} from '@/lib/readiness/demand';
+import { defaultReadinessSettings, resolveReadinessSettings } from '@/lib/readiness/settings';
+import type { ChecklistAnswers, FuseRating, LoadAnswers, ReadinessSettingsInput, SiteMeasures, SupplyPhases } from '@/lib/readiness';
 
 // All amps at 230 V nominal (ESQCR 2002, SI 2002/2665): I = P / 230.
 // Diversity: IET On-Site Guide Appendix A, Table A2 (as in The Electrician's Guide, Table 6.2).

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { checkSupplyIdentity } from '../../src/lib/readiness/checks/supply-identity';
-import { defaultReadinessSettings } from '../../src/lib/readiness/settings';
+import { checkSupplyIdentity } from '@/lib/readiness/checks/supply-identity';
+import { defaultReadinessSettings } from '@/lib/readiness/settings';
 
 // MPAN core check digit (MRA/Elexon definition as described in the Wikipedia article "Meter
 // Point Administration Number"): first 12 digits × 3, 5, 7, 13, 17, 19, 23, 29, 31, 37, 41, 43;

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { checkTiming, leadTime, timingLight, timingLightWithUnknowns } from '../../src/lib/readiness/checks/timing';
-import { addDays, isoDayNumber } from '../../src/lib/readiness/dates';
-import { defaultReadinessSettings, resolveReadinessSettings } from '../../src/lib/readiness/settings';
-import type { LoadAnswers, Looped, SupplyAnswers } from '../../src/lib/readiness';
+import { checkTiming, leadTime, timingLight, timingLightWithUnknowns } from '@/lib/readiness/checks/timing';
+import { addDays, isoDayNumber } from '@/lib/readiness/dates';
+import { defaultReadinessSettings, resolveReadinessSettings } from '@/lib/readiness/settings';
+import type { LoadAnswers, Looped, SupplyAnswers } from '@/lib/readiness';
 
 // Lead times are settings (common practice, no published source): survey 7 + install 14 = 21
 // calendar days; + 28 when the network operator must be applied to first (ENA "Connecting

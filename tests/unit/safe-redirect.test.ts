@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { safeCallbackPath } from '../../src/lib/safe-redirect';
+import { safeCallbackPath } from '@/lib/safe-redirect';
 
 // What a browser makes of each value follows the WHATWG URL Standard (url.spec.whatwg.org):
 // §4.4 "basic URL parser" strips ASCII tab and newline anywhere, and for special schemes (http,

@@ -1,5 +1,5 @@
 import { afterEach, describe, expect, it } from 'vitest';
-import { withSecurityHeaders } from '../../src/lib/server/security-headers.server';
+import { withSecurityHeaders } from '@/lib/server/security-headers.server';
 
 // RFC 6797 §7.2: HSTS is sent only over secure transport; a browser ignores it over plain http.
 describe('withSecurityHeaders', () => {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { parsePhoneNumberFromString } from 'libphonenumber-js/max';
-import { isStopReply, redactLinks, textDecision, withinSendingHours } from '../../src/lib/text-rules';
-import { checkUkMobile } from '../../src/lib/validation/phone';
-import { textConsentSchema } from '../../src/lib/schemas/texts';
+import { isStopReply, redactLinks, textDecision, withinSendingHours } from '@/lib/text-rules';
+import { checkUkMobile } from '@/lib/validation/phone';
+import { textConsentSchema } from '@/lib/schemas/texts';
 
 // Consent: UK rules on marketing by text (PECR reg. 22, from memory) need a freely given, specific
 // yes; a reminder about a job the customer asked for is service, but Groundwork still texts only

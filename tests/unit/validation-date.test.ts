@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkIsoDate } from '../../src/lib/validation/date';
+import { checkIsoDate } from '@/lib/validation/date';
 
 // Source: ISO 8601 calendar dates (extended format YYYY-MM-DD) on the Gregorian calendar:
 // a leap year is divisible by 4, except century years, which must be divisible by 400.

@@ -7,7 +7,7 @@ import {
   mpanRegions,
   normaliseMpanCore,
   regionForDistributor,
-} from '../../src/lib/validation/mpan';
+} from '@/lib/validation/mpan';
 
 // Source for the rule and the worked example: the MRA/Elexon MPAN definition as described in the
 // Wikipedia article "Meter Point Administration Number" — weights 3,5,7,13,17,19,23,29,31,37,41,43

@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { parsePhoneNumberFromString as parseWithEveryCountry } from 'libphonenumber-js';
-import { checkUkPhone } from '../../src/lib/validation/phone';
-import ukMetadata from '../../src/lib/validation/uk-phone-metadata.json';
+import { checkUkPhone } from '@/lib/validation/phone';
+import ukMetadata from '@/lib/validation/uk-phone-metadata.json';
 import { ukMetadata as cutDown } from '../../scripts/phone-metadata.mjs';
 
 // Source: the UK numbering plan as encoded in libphonenumber-js metadata (ITU-T E.164 output).

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { checkPostcode, normalisePostcode } from '../../src/lib/validation/postcode';
+import { checkPostcode, normalisePostcode } from '@/lib/validation/postcode';
 
 // Source: BS 7666 / GovTalk PostCodeType (TRADE-REFERENCE.md, "Address"): outward code A9, A99,
 // A9A, AA9, AA99 or AA9A; a space; inward code digit + two letters. First letter never Q, V, X;

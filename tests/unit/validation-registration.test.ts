@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ageIdentifierStart, checkRegistration } from '../../src/lib/validation/registration';
+import { ageIdentifierStart, checkRegistration } from '@/lib/validation/registration';
 
 // Source: DVLA INF104 (as summarised in TRADE-REFERENCE.md, "Vehicle"). Current format since
 // September 2001: two letters, two-digit age identifier (March = the year's last two digits,

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { VIN_CHECK_DIGIT_WARNING, checkVin, normaliseVin, vinCheckDigit } from '../../src/lib/validation/vin';
+import { VIN_CHECK_DIGIT_WARNING, checkVin, normaliseVin, vinCheckDigit } from '@/lib/validation/vin';
 
 // Source: 49 CFR Part 565, §565.15 — transliteration A=1…H=8, J=1…R=9 (P=7), S=2…Z=9; weights
 // 8,7,6,5,4,3,2,10,0,9,8,7,6,5,4,3,2; sum mod 11, 10 written "X". No I, O or Q in a VIN.

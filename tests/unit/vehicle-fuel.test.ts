@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fuelAdvice, fuelFit, makeWords } from '../../src/lib/vehicle-fuel';
+import { fuelAdvice, fuelFit, makeWords } from '@/lib/vehicle-fuel';
 
 // Fuel types as the government vehicle enquiry service writes them (from memory of its public
 // API documentation). A charge point serves battery-electric and plug-in hybrid cars

@@ -3,10 +3,10 @@
 // and for staff, and every field has its question, gap words and staff label.
 import { describe, expect, it } from 'vitest';
 import { z, type ZodTypeAny } from 'zod';
-import { sectionPatchSchemas } from '../../src/lib/schemas/checklist';
-import { fieldWords, optionWords, staffLabel, wordsFor, customerGapLabel } from '../../src/lib/vocabulary/fields';
-import { staffAnswer } from '../../src/lib/vocabulary/answers';
-import { portLabels, portStaffLabels, wayLabels } from '../../src/lib/vocabulary/plan';
+import { sectionPatchSchemas } from '@/lib/schemas/checklist';
+import { fieldWords, optionWords, staffLabel, wordsFor, customerGapLabel } from '@/lib/vocabulary/fields';
+import { staffAnswer } from '@/lib/vocabulary/answers';
+import { portLabels, portStaffLabels, wayLabels } from '@/lib/vocabulary/plan';
 
 type Found = { path: string; choices: string[] };
 

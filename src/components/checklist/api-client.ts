@@ -1,7 +1,7 @@
 // The browser's side of the case API: one function per call, each answering with an outcome the
 // form can act on rather than throwing (a save that fails is normal on a phone signal).
-import type { Checklist, ChecklistPatchInput, SectionId, SectionProgress } from '../../lib/schemas/checklist';
-import type { StageId } from '../../lib/stages';
+import type { Checklist, ChecklistPatchInput, SectionId, SectionProgress } from '@/lib/schemas/checklist';
+import type { StageId } from '@/lib/stages';
 
 /** A case as GET /api/cases/:id answers it (the client's copy of the server's shape). */
 export type CaseView = {

@@ -2,7 +2,7 @@
 // server shortly after, and only forgotten once the server has that exact value.
 import type { CaseView, PatchOutcome } from './api-client';
 import { checkFormValue, editsToPatch, type Edits } from './form-values';
-import type { ChecklistPatchInput } from '../../lib/schemas/checklist';
+import type { ChecklistPatchInput } from '@/lib/schemas/checklist';
 
 export type SaveStatus =
   | { kind: 'idle' }

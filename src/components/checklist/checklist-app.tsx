@@ -4,14 +4,14 @@ import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } fro
 import { get, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { customerStage } from '@/lib/vocabulary/stages';
-import { ChevronLeftIcon, ChevronRightIcon, InfoIcon, StopIcon, WarningIcon } from '../icons';
+import { ChevronLeftIcon, ChevronRightIcon, InfoIcon, StopIcon, WarningIcon } from '@/components/icons';
 import { confirmDetails, loadCase, patchChecklist, type CaseView } from './api-client';
 import { AutosaveQueue, type QueueListener, type SaveStatus } from './autosave-queue';
 import { ChecklistCtx, fieldId, type ChecklistContext } from './checklist-context';
 import { fieldByPath, fieldDefs } from './field-defs';
 import { checkFormValue, checklistToForm, formSchema, fromApiValue, type FormValues } from './form-values';
 import { localChecklist, progressOf, resumeStep, stepFromHash, stepHash, stepOfField, steps, type StepId } from './progress';
-import { stepTitle } from '../../lib/checklist-steps';
+import { stepTitle } from '@/lib/checklist-steps';
 import { SaveStatusLine } from './save-status';
 import { StepList } from './step-list';
 import { AboutStep, HomeStep } from './step-about';

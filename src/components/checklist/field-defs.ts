@@ -2,7 +2,7 @@
 // choices, which options span a whole row. The words — label, choices, hints and what a gap
 // holds up — come from the vocabulary (src/lib/vocabulary/fields.ts), the one place they are
 // written. Paths are the API's dotted paths ("supply.loads.showerKw").
-import type { SectionId } from '../../lib/schemas/checklist';
+import type { SectionId } from '@/lib/schemas/checklist';
 import { fieldWords, type FieldPath } from '@/lib/vocabulary/fields';
 
 /** How a field is typed in the form; decides the conversion to and from the API value. */

@@ -2,7 +2,7 @@
 // aria-describedby, and each queueing a save as the customer types or chooses.
 import type { ChangeEvent, FocusEvent, HTMLAttributes, ReactNode } from 'react';
 import { get, useFormState, useWatch } from 'react-hook-form';
-import { InfoIcon, StopIcon, WarningIcon } from '../icons';
+import { InfoIcon, StopIcon, WarningIcon } from '@/components/icons';
 import { fieldId, useChecklist } from './checklist-context';
 import { fieldByPath, type Option } from './field-defs';
 

@@ -9,8 +9,8 @@ import {
   type ChecklistPatch,
   type ChecklistPatchInput,
   type SectionId,
-} from '../../lib/schemas/checklist';
-import { checkUkPhone } from '../../lib/validation/phone';
+} from '@/lib/schemas/checklist';
+import { checkUkPhone } from '@/lib/validation/phone';
 import { fieldByPath, fieldDefs, type FieldDef } from './field-defs';
 
 /** Form values: sections of strings, with supply.loads nested, mirroring the API's paths. */

@@ -1,6 +1,6 @@
 // Boxes of words that stand beside fields: longer help, safety cautions, gentle notes.
 import type { ReactNode } from 'react';
-import { InfoIcon, StopIcon, WarningIcon } from '../icons';
+import { InfoIcon, StopIcon, WarningIcon } from '@/components/icons';
 
 /** A safety caution, always with the stop icon and the word "Safety". */
 export function Caution({ children, title = 'Safety' }: { children: ReactNode; title?: string }) {

@@ -1,13 +1,13 @@
 // Where the customer stands: the steps, each step's state, the gaps and how answers read back.
-import { checklistPatchSchema, mergeChecklist, type Checklist, type SectionId } from '../../lib/schemas/checklist';
-import { checklistSteps, stepOfField, stepProgress, type DataStepId, type StepProgress } from '../../lib/checklist-steps';
-import { checkMpanCore } from '../../lib/validation/mpan';
-import { checkUkPhone } from '../../lib/validation/phone';
+import { checklistPatchSchema, mergeChecklist, type Checklist, type SectionId } from '@/lib/schemas/checklist';
+import { checklistSteps, stepOfField, stepProgress, type DataStepId, type StepProgress } from '@/lib/checklist-steps';
+import { checkMpanCore } from '@/lib/validation/mpan';
+import { checkUkPhone } from '@/lib/validation/phone';
 import { fieldByPath, fieldDefs, fieldsOf, optionLabel, type FieldDef } from './field-defs';
 import { checkFormValue, editsToPatch, valueAt, type Edits } from './form-values';
 
-export type { StepId, StepProgress } from '../../lib/checklist-steps';
-export { stepFromHash, stepHash, resumeStep, stepOfField } from '../../lib/checklist-steps';
+export type { StepId, StepProgress } from '@/lib/checklist-steps';
+export { stepFromHash, stepHash, resumeStep, stepOfField } from '@/lib/checklist-steps';
 
 /** Every step in order, "Check and send" last. @example steps.at(-1) // { id: 'review', title: 'Check and send' } */
 export const steps = checklistSteps;

@@ -1,5 +1,5 @@
 // The small line that says whether the answers are safe on the server: icon and words together.
-import { CheckIcon, InfoIcon, SpinnerIcon, StopIcon, WarningIcon } from '../icons';
+import { CheckIcon, InfoIcon, SpinnerIcon, StopIcon, WarningIcon } from '@/components/icons';
 import type { SaveStatus } from './autosave-queue';
 
 /** Words and icon for each save status. */

@@ -1,13 +1,13 @@
 // Steps 1 and 2, About you (who to contact) and Your home (where the charge point goes).
 import { StepEvidence } from './step-evidence';
-import { checkPostcode } from '../../lib/validation/postcode';
-import { checkUkPhone } from '../../lib/validation/phone';
+import { checkPostcode } from '@/lib/validation/postcode';
+import { checkUkPhone } from '@/lib/validation/phone';
 import { ChoiceField, PREFILLED_MARK, TextField, useFieldValue } from './fields';
 import { useChecklist } from './checklist-context';
 import { fieldDefs } from './field-defs';
-import { CheckIcon } from '../icons';
-import { stepOfField, type StepId } from '../../lib/checklist-steps';
-import { listWords } from '../../lib/grammar';
+import { CheckIcon } from '@/components/icons';
+import { stepOfField, type StepId } from '@/lib/checklist-steps';
+import { listWords } from '@/lib/grammar';
 import { Note } from './notes';
 import { lazy, Suspense, useEffect, useState } from 'react';
 

@@ -1,8 +1,8 @@
 // The uploads a step asks for, dropped in at the end of that step, with the photo cautions
 // (src/lib/cautions.ts) above the slots wherever a supply photo is asked for.
-import { customerPhotoCautions, slotCaution } from '../../lib/cautions';
-import type { UploadKind } from '../../lib/schemas/uploads';
-import UploadSlot from '../uploads/upload-slot';
+import { customerPhotoCautions, slotCaution } from '@/lib/cautions';
+import type { UploadKind } from '@/lib/schemas/uploads';
+import UploadSlot from '@/components/uploads/upload-slot';
 import { Caution } from './notes';
 
 export function StepEvidence({ caseId, kinds, heading = 'Photos' }: { caseId: string; kinds: UploadKind[]; heading?: string }) {

@@ -1,8 +1,8 @@
 // The list of steps: compact on a phone ("Step 2 of 6", opens on demand), a sidebar on a
 // desktop. Each step says in words whether it is complete, has gaps or is not started.
 import { useState } from 'react';
-import type { StepProgress } from '../../lib/checklist-steps';
-import { CameraIcon, CheckIcon, ChevronDownIcon, ChevronUpIcon, CircleIcon, SendIcon, WarningIcon } from '../icons';
+import type { StepProgress } from '@/lib/checklist-steps';
+import { CameraIcon, CheckIcon, ChevronDownIcon, ChevronUpIcon, CircleIcon, SendIcon, WarningIcon } from '@/components/icons';
 import { stepHash, stepState, steps, type StepId, type StepState } from './progress';
 
 type Props = { current: StepId; progress: StepProgress[]; sent: boolean };

@@ -2,7 +2,7 @@
 // Both save under supply (supply.consumerUnitLocation, supply.loads.*) as before.
 import { StepEvidence } from './step-evidence';
 import { ChoiceField, NumberField, TextField } from './fields';
-import { caution } from '../../lib/cautions';
+import { caution } from '@/lib/cautions';
 import { Caution, MoreHelp } from './notes';
 
 /** Your consumer unit and earthing: where the consumer unit is, earthing and phases. */

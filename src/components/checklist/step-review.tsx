@@ -1,15 +1,15 @@
 // Step 6, Check and send: every answer on one page, the gaps and what each holds up, and the
 // Send button (with a confirmation that lists the gaps, when there are any).
 import { useEffect, useRef, useState } from 'react';
-import type { Checklist } from '../../lib/schemas/checklist';
-import type { StepId, StepProgress } from '../../lib/checklist-steps';
-import { CheckIcon, PencilIcon, SendIcon, SpinnerIcon, StopIcon, WarningIcon } from '../icons';
+import type { Checklist } from '@/lib/schemas/checklist';
+import type { StepId, StepProgress } from '@/lib/checklist-steps';
+import { CheckIcon, PencilIcon, SendIcon, SpinnerIcon, StopIcon, WarningIcon } from '@/components/icons';
 import { loadCase, submitCase, type CaseView, type Gap } from './api-client';
 import { fieldId } from './checklist-context';
 import { fieldByPath } from './field-defs';
 import { gapWords, stepHash, stepOfField, stepSummaryRows, steps } from './progress';
 import { Note } from './notes';
-import CustomerReadiness from '../readiness/customer-readiness';
+import CustomerReadiness from '@/components/readiness/customer-readiness';
 
 type Props = {
   caseId: string;

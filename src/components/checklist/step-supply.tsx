@@ -1,10 +1,10 @@
 // Your meter and fuse: the MPAN, the main fuse and a looped supply; photos of the
 // meter and cut-out. The consumer unit, earthing and phases come next, then the photos (step-loads.tsx).
-import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore, UNLISTED_DISTRIBUTOR } from '../../lib/validation/mpan';
-import { CheckIcon } from '../icons';
+import { checkMpanCore, INDEPENDENT_NETWORK, normaliseMpanCore, UNLISTED_DISTRIBUTOR } from '@/lib/validation/mpan';
+import { CheckIcon } from '@/components/icons';
 import { useChecklist } from './checklist-context';
 import { ChoiceField, NumberField, TextField, useFieldValue } from './fields';
-import { caution } from '../../lib/cautions';
+import { caution } from '@/lib/cautions';
 import { Caution, MoreHelp } from './notes';
 
 /** The region line shown once an MPAN core passes its check digit. */

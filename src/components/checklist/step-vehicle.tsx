@@ -1,10 +1,10 @@
 // Step 2, Your vehicle: which car, when it comes, its plug and where its socket is.
 import { StepEvidence } from './step-evidence';
 import { useState } from 'react';
-import { fieldWarnings } from '../../lib/schemas/checklist';
-import { checkRegistration } from '../../lib/validation/registration';
-import { checkIsoDate } from '../../lib/validation/date';
-import { normaliseVin } from '../../lib/validation/vin';
+import { fieldWarnings } from '@/lib/schemas/checklist';
+import { checkRegistration } from '@/lib/validation/registration';
+import { checkIsoDate } from '@/lib/validation/date';
+import { normaliseVin } from '@/lib/validation/vin';
 import { useChecklist } from './checklist-context';
 import { ChoiceField, TextField, useFieldValue } from './fields';
 import { MoreHelp } from './notes';

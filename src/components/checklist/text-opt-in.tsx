@@ -1,8 +1,8 @@
 // Reminders by text: an explicit, separate yes (never pre-ticked), for a UK mobile, that the
 // customer can take back here or by replying STOP. Hidden when the installer has texts off.
 import { useEffect, useId, useState } from 'react';
-import { checkUkMobile } from '../../lib/validation/phone';
-import { SpinnerIcon } from '../icons';
+import { checkUkMobile } from '@/lib/validation/phone';
+import { SpinnerIcon } from '@/components/icons';
 import { agreeToTexts, loadTexts, stopTexts, type TextsOutcome, type TextsView } from './services-client';
 import { useFieldValue } from './fields';
 

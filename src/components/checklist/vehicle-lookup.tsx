@@ -3,9 +3,9 @@
 // not one that charges from a charge point. Never in the way: slow, failing or unknown answers
 // just leave the make for the customer to type.
 import { useEffect, useRef, useState } from 'react';
-import { checkRegistration } from '../../lib/validation/registration';
-import { fuelWords } from '../../lib/vehicle-fuel';
-import { InfoIcon, SpinnerIcon, WarningIcon } from '../icons';
+import { checkRegistration } from '@/lib/validation/registration';
+import { fuelWords } from '@/lib/vehicle-fuel';
+import { InfoIcon, SpinnerIcon, WarningIcon } from '@/components/icons';
 import { useChecklist } from './checklist-context';
 import { lookupVehicle, type LookupOutcome } from './services-client';
 

@@ -1,6 +1,6 @@
 // The audit trail in sentences: who did what, with each changed answer from → to.
-import { uploadKindInfo, type UploadKind } from '../../lib/schemas/uploads';
-import { stageLabels, type StageId } from '../../lib/stages';
+import { uploadKindInfo, type UploadKind } from '@/lib/schemas/uploads';
+import { stageLabels, type StageId } from '@/lib/stages';
 import { countOf } from '@/lib/grammar';
 import { auditValue, staffLabel } from '@/lib/vocabulary';
 import type { AuditItem } from './case-types';

@@ -1,14 +1,14 @@
 // The customer's answers, grouped as the checklist groups them, with what is still missing.
-import { sectionIds, type Checklist, type SectionId, type SectionProgress } from '../../lib/schemas/checklist';
-import { summaryRows } from '../checklist/progress';
-import { CheckIcon, WarningIcon } from '../icons';
+import { sectionIds, type Checklist, type SectionId, type SectionProgress } from '@/lib/schemas/checklist';
+import { summaryRows } from '@/components/checklist/progress';
+import { CheckIcon, WarningIcon } from '@/components/icons';
 import { countOf } from '@/lib/grammar';
 import { staffAnswer, staffLabel } from '@/lib/vocabulary';
-import { valueAt } from '../checklist/form-values';
-import type { FieldDef } from '../checklist/field-defs';
+import { valueAt } from '@/components/checklist/form-values';
+import type { FieldDef } from '@/components/checklist/field-defs';
 import type { VehicleLookupInfo } from './case-types';
 import { formatDayTime } from './format';
-import { fuelFit, fuelWords } from '../../lib/vehicle-fuel';
+import { fuelFit, fuelWords } from '@/lib/vehicle-fuel';
 
 type Props = { checklist: Checklist; progress: SectionProgress[]; warnings: Record<string, string>; vehicleLookup?: VehicleLookupInfo };
 

@@ -1,11 +1,11 @@
 // The case's side column: office notes (list and add), the e-mails sent, and the audit trail.
 import { useEffect, useId, useState, type FormEvent } from 'react';
-import type { UploadKind } from '../../lib/schemas/uploads';
-import { SpinnerIcon } from '../icons';
+import type { UploadKind } from '@/lib/schemas/uploads';
+import { SpinnerIcon } from '@/components/icons';
 import { apiCall } from './api';
 import { actorWords, describeAudit } from './audit-words';
 import type { AuditItem, MessageItem, NoteItem } from './case-types';
-import { checkUkPhone } from '../../lib/validation/phone';
+import { checkUkPhone } from '@/lib/validation/phone';
 import { formatDayTime } from './format';
 
 /** Loads `{ items }` from a case's sub-resource, again whenever refreshKey changes. */

@@ -1,8 +1,8 @@
 // The client's copies of the case API's shapes (the server's types live in server-only files).
-import type { SiteMeasures } from '../../lib/readiness/types';
-import type { Checklist, SectionProgress } from '../../lib/schemas/checklist';
-import type { CheckResult, Light } from '../../lib/readiness/types';
-import type { StageId } from '../../lib/stages';
+import type { SiteMeasures } from '@/lib/readiness/types';
+import type { Checklist, SectionProgress } from '@/lib/schemas/checklist';
+import type { CheckResult, Light } from '@/lib/readiness/types';
+import type { StageId } from '@/lib/stages';
 
 /** GET /api/cases/:id, as staff use it. */
 export type OfficeCaseView = {

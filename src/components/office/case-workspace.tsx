@@ -2,20 +2,20 @@
 // its figures, the answers, the uploads to review, and notes, e-mails and history beside them.
 import { gapWords } from '@/lib/vocabulary/pack';
 import { useCallback, useEffect, useState } from 'react';
-import type { UploadItem, UploadKind } from '../../lib/schemas/uploads';
-import { SendIcon, SpinnerIcon } from '../icons';
+import type { UploadItem, UploadKind } from '@/lib/schemas/uploads';
+import { SendIcon, SpinnerIcon } from '@/components/icons';
 import { apiCall } from './api';
 import { CaseAnswers } from './case-answers';
 import { AuditPanel, MessagesPanel, NotesPanel } from './case-records';
 import type { CasePeople, OfficeCaseView, Readiness, StaffMember, VehicleLookupInfo } from './case-types';
 import { formatDay, formatDayTime, plural } from './format';
-import { LightBadge } from '../readiness/light-badge';
+import { LightBadge } from '@/components/readiness/light-badge';
 import { ReadinessPanel } from './readiness-panel';
 import { SiteMeasuresForm } from './site-measures-form';
 import { StageActions } from './stage-actions';
 import { StagePill } from './stage-pill';
 import { UploadReview } from './upload-review';
-import { checkUkPhone } from '../../lib/validation/phone';
+import { checkUkPhone } from '@/lib/validation/phone';
 
 type Props = { initial: OfficeCaseView; people: CasePeople; surveyors: StaffMember[]; vehicleLookup: VehicleLookupInfo };
 type ChaseAnswer = { sent: boolean; items: string[]; text?: { sent: boolean; reason?: string } };

@@ -4,9 +4,9 @@
 import { cableSourceWords, loadsDeclaredWords, networkRouteWord, portWord, staffAnswer, wayWord } from '@/lib/vocabulary';
 import { countOf } from '@/lib/grammar';
 import type { ReactNode } from 'react';
-import type { CheckResult } from '../../lib/readiness/types';
-import { uploadKindInfo, type UploadKind } from '../../lib/schemas/uploads';
-import { CheckIcon, StopIcon } from '../icons';
+import type { CheckResult } from '@/lib/readiness/types';
+import { uploadKindInfo, type UploadKind } from '@/lib/schemas/uploads';
+import { CheckIcon, StopIcon } from '@/components/icons';
 import { formatDay, formatNumber } from './format';
 
 type Figures = Record<string, unknown>;

@@ -1,6 +1,6 @@
 // Short staff names for the readiness checks, found from the titles the queue lists as gaps.
-import { runChecks } from '../../lib/readiness';
-import type { CheckId } from '../../lib/readiness/types';
+import { runChecks } from '@/lib/readiness';
+import type { CheckId } from '@/lib/readiness/types';
 
 export const checkShortNames: Record<CheckId, string> = {
   'supply-identity': 'MPAN',

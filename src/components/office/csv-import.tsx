@@ -2,8 +2,8 @@
 // server (per-row errors, duplicates in the file and in the database), then created in one go.
 import { useId, useState } from 'react';
 import Papa from 'papaparse';
-import { inviteCsvColumns, inviteFromCsvRow, type InviteInput } from '../../lib/schemas/invite';
-import { CheckIcon, SpinnerIcon, StopIcon, WarningIcon } from '../icons';
+import { inviteCsvColumns, inviteFromCsvRow, type InviteInput } from '@/lib/schemas/invite';
+import { CheckIcon, SpinnerIcon, StopIcon, WarningIcon } from '@/components/icons';
 import { apiCall } from './api';
 import { plural } from './format';
 

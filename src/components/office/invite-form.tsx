@@ -3,8 +3,8 @@
 import { useState } from 'react';
 import { useForm, type FieldPath } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
-import { inviteSchema, type Invite, type InviteInput } from '../../lib/schemas/invite';
-import { CheckIcon, SendIcon, SpinnerIcon, WarningIcon } from '../icons';
+import { inviteSchema, type Invite, type InviteInput } from '@/lib/schemas/invite';
+import { CheckIcon, SendIcon, SpinnerIcon, WarningIcon } from '@/components/icons';
 import { apiCall } from './api';
 
 type Created = { id: string; reference: string };

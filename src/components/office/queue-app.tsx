@@ -10,11 +10,11 @@ import {
   type RowSelectionState,
   type SortingState,
 } from '@tanstack/react-table';
-import type { QueueItem, QueueSortKey } from '../../lib/schemas/queue';
-import { CameraIcon, ChevronDownIcon, ChevronLeftIcon, ChevronRightIcon, ChevronUpIcon, InfoIcon, SendIcon, SpinnerIcon, StopIcon } from '../icons';
+import type { QueueItem, QueueSortKey } from '@/lib/schemas/queue';
+import { CameraIcon, ChevronDownIcon, ChevronLeftIcon, ChevronRightIcon, ChevronUpIcon, InfoIcon, SendIcon, SpinnerIcon, StopIcon } from '@/components/icons';
 import { apiCall, type ApiError } from './api';
 import { daysSince, daysUntil, formatDay, plural, relativeDays } from './format';
-import { LightBadge } from '../readiness/light-badge';
+import { LightBadge } from '@/components/readiness/light-badge';
 import { QueueFilters, type Surveyor } from './queue-filters';
 import { clearFilters, hasFilters, searchFromView, viewFromSearch, type QueueView } from './queue-state';
 import { StagePill } from './stage-pill';

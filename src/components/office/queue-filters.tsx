@@ -1,11 +1,11 @@
 // The queue's filter bar: search, readiness, stage, surveyor, "car due within" and flagged photos.
 import { countOf } from '@/lib/grammar';
 import { useEffect, useRef, type ReactNode } from 'react';
-import { lights } from '../../lib/schemas/queue';
-import { stageLabels, stages, type StageId } from '../../lib/stages';
-import { CameraIcon, ChevronDownIcon } from '../icons';
-import { LightIcon } from '../readiness/light-badge';
-import { staffLightWords as lightWords } from '../../lib/readiness/lights';
+import { lights } from '@/lib/schemas/queue';
+import { stageLabels, stages, type StageId } from '@/lib/stages';
+import { CameraIcon, ChevronDownIcon } from '@/components/icons';
+import { LightIcon } from '@/components/readiness/light-badge';
+import { staffLightWords as lightWords } from '@/lib/readiness/lights';
 import { toggle, type Light, type QueueView } from './queue-state';
 
 export type Surveyor = { id: string; name: string | null; email: string };

@@ -1,7 +1,7 @@
 // The queue's view (filters, sort, page) and its place in the URL, so a view can be
 // bookmarked, shared and restored on reload. Pure: no window access here.
-import { lights, queueQueryFromParams, type QueueQuery, type QueueSortKey } from '../../lib/schemas/queue';
-import type { StageId } from '../../lib/stages';
+import { lights, queueQueryFromParams, type QueueQuery, type QueueSortKey } from '@/lib/schemas/queue';
+import type { StageId } from '@/lib/stages';
 
 export type Light = (typeof lights)[number];
 

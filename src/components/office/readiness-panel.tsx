@@ -1,10 +1,10 @@
 // Every readiness check of a case: light (word and icon), the staff reading, what would clear
 // it, the figures it computed and the source it rests on.
 import { useState } from 'react';
-import type { CheckResult } from '../../lib/readiness/types';
-import { ChevronDownIcon } from '../icons';
+import type { CheckResult } from '@/lib/readiness/types';
+import { ChevronDownIcon } from '@/components/icons';
 import { CheckFigures } from './check-figures';
-import { LightBadge } from '../readiness/light-badge';
+import { LightBadge } from '@/components/readiness/light-badge';
 
 export function ReadinessPanel({ checks }: { checks: CheckResult[] }) {
   // Blocking checks open with their figures; the rest show their reading and open on demand.

@@ -3,8 +3,8 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { z } from 'zod';
-import { setPasswordSchema } from '../../lib/schemas/office';
-import { CheckIcon, SpinnerIcon, StopIcon } from '../icons';
+import { setPasswordSchema } from '@/lib/schemas/office';
+import { CheckIcon, SpinnerIcon, StopIcon } from '@/components/icons';
 import { apiCall } from './api';
 
 const formSchema = setPasswordSchema

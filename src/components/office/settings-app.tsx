@@ -1,9 +1,9 @@
 // The admin's settings: every readiness threshold and lead time with its meaning, default and
 // source, a reset to the default per field, and the automatic reminder schedule.
 import { useEffect, useMemo, useState, type FormEvent } from 'react';
-import { readinessSettingsSchema, type ReadinessSettingKey, type ReadinessSettings, type SettingDescription } from '../../lib/readiness/settings';
-import { reminderSettingsSchema, type ReminderSettings } from '../../lib/schemas/settings';
-import { CheckIcon, SpinnerIcon, StopIcon } from '../icons';
+import { readinessSettingsSchema, type ReadinessSettingKey, type ReadinessSettings, type SettingDescription } from '@/lib/readiness/settings';
+import { reminderSettingsSchema, type ReminderSettings } from '@/lib/schemas/settings';
+import { CheckIcon, SpinnerIcon, StopIcon } from '@/components/icons';
 import { apiCall } from './api';
 import { plural } from './format';
 

@@ -2,10 +2,10 @@
 // demand from smart-meter or logger data, the 722.411.4.1 measure chosen for PME, and a TT
 // electrode's RA with the RCD's IΔn. Saved through the shared schema; the checks rerun.
 import { useState, type FormEvent } from 'react';
-import { zodIssuesToFields } from '../../lib/schemas/checklist';
-import { earthingMeasureOptionLabels, earthingMeasureValues, measurementFields, siteMeasuresSchema } from '../../lib/schemas/outcome';
-import type { EarthingMeasure, SiteMeasures } from '../../lib/readiness/types';
-import { CheckIcon, SpinnerIcon } from '../icons';
+import { zodIssuesToFields } from '@/lib/schemas/checklist';
+import { earthingMeasureOptionLabels, earthingMeasureValues, measurementFields, siteMeasuresSchema } from '@/lib/schemas/outcome';
+import type { EarthingMeasure, SiteMeasures } from '@/lib/readiness/types';
+import { CheckIcon, SpinnerIcon } from '@/components/icons';
 import { apiCall } from './api';
 
 type Props = { caseId: string; initial: SiteMeasures; onSaved(measures: SiteMeasures): void };

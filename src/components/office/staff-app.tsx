@@ -4,8 +4,8 @@ import { useEffect, useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import type { z } from 'zod';
-import { staffInviteSchema } from '../../lib/schemas/office';
-import { CheckIcon, CircleIcon, SendIcon, SpinnerIcon } from '../icons';
+import { staffInviteSchema } from '@/lib/schemas/office';
+import { CheckIcon, CircleIcon, SendIcon, SpinnerIcon } from '@/components/icons';
 import { apiCall } from './api';
 import { formatDay } from './format';
 

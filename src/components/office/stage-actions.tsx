@@ -1,8 +1,8 @@
 // Moving a case along: only the moves allowed from its stage are offered. "Ready for survey"
 // with red checks asks for a written override; "Survey booked" asks for a surveyor and a date.
 import { useId, useState } from 'react';
-import { allowedMoves, stageLabels, type StageId } from '../../lib/stages';
-import { ChevronRightIcon, SpinnerIcon, StopIcon } from '../icons';
+import { allowedMoves, stageLabels, type StageId } from '@/lib/stages';
+import { ChevronRightIcon, SpinnerIcon, StopIcon } from '@/components/icons';
 import { apiCall, type ApiError } from './api';
 import type { OfficeCaseView, StaffMember } from './case-types';
 import { todayIso } from './format';

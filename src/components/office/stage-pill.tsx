@@ -1,5 +1,5 @@
 // The stage of a case as a word in a pill (the React twin of stage-badge.astro).
-import { stageLabels, stageTone, type StageId } from '../../lib/stages';
+import { stageLabels, stageTone, type StageId } from '@/lib/stages';
 
 export function StagePill({ stage }: { stage: StageId }) {
   return (

@@ -1,12 +1,12 @@
 // The case's photos and documents, grouped by kind, with a large view and accept / reject with a
 // reason (a rejection e-mails the customer the reason and what a good one shows).
 import { useEffect, useId, useRef, useState } from 'react';
-import type { Checklist } from '../../lib/schemas/checklist';
-import type { ChecklistAnswers } from '../../lib/readiness/types';
-import { requiredUploadKinds, uploadKindStatus } from '../../lib/readiness';
-import { formatBytes, uploadKindInfo, uploadKinds, type UploadItem, type UploadKind, type UploadStatus } from '../../lib/schemas/uploads';
-import { photoProblemStaffWords, rejectionWords } from '../../lib/photo-quality';
-import { CheckIcon, CircleIcon, InfoIcon, SpinnerIcon, StopIcon, WarningIcon } from '../icons';
+import type { Checklist } from '@/lib/schemas/checklist';
+import type { ChecklistAnswers } from '@/lib/readiness/types';
+import { requiredUploadKinds, uploadKindStatus } from '@/lib/readiness';
+import { formatBytes, uploadKindInfo, uploadKinds, type UploadItem, type UploadKind, type UploadStatus } from '@/lib/schemas/uploads';
+import { photoProblemStaffWords, rejectionWords } from '@/lib/photo-quality';
+import { CheckIcon, CircleIcon, InfoIcon, SpinnerIcon, StopIcon, WarningIcon } from '@/components/icons';
 import { apiCall } from './api';
 import { formatDayTime } from './format';
 

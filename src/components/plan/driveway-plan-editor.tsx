@@ -1,9 +1,9 @@
 // The driveway plan with saving: every change is sent about 800 ms after the last one, retried
 // with backoff when the signal drops, and sent at once when the tab is hidden or closed.
 import { useEffect, useRef, useState } from 'react';
-import { CheckIcon, InfoIcon, SpinnerIcon, WarningIcon } from '../icons';
-import type { DrivewayPlan as PlanValue } from '../../lib/readiness/plan';
-import type { ChargePort, ChargerPreference, ParkingHabit } from '../../lib/readiness/types';
+import { CheckIcon, InfoIcon, SpinnerIcon, WarningIcon } from '@/components/icons';
+import type { DrivewayPlan as PlanValue } from '@/lib/readiness/plan';
+import type { ChargePort, ChargerPreference, ParkingHabit } from '@/lib/readiness/types';
 import { DrivewayPlan, type PlanSettings } from './driveway-plan';
 import { retryDelayMs, savePlan, type PlanCaseView } from './plan-save';
 import { defaultPlan, readSavedPlan } from '@/lib/plan/plan-view';

@@ -2,11 +2,11 @@
 // arrow keys or a finger, and, live, whether the charging cable reaches the car's port for
 // each way of parking. Controlled and pure client: saving is the caller's job.
 import { useId, useMemo, useState } from 'react';
-import { InfoIcon } from '../icons';
-import { cableForReach } from '../../lib/readiness/checks/cable-reach';
-import { otherBaysOccupied, reachVerdict, type DrivewayPlan as PlanValue } from '../../lib/readiness/plan';
-import { defaultReadinessSettings, type ReadinessSettings } from '../../lib/readiness/settings';
-import type { ChargePort, ChargerPreference, ParkingHabit, ParkingWay } from '../../lib/readiness/types';
+import { InfoIcon } from '@/components/icons';
+import { cableForReach } from '@/lib/readiness/checks/cable-reach';
+import { otherBaysOccupied, reachVerdict, type DrivewayPlan as PlanValue } from '@/lib/readiness/plan';
+import { defaultReadinessSettings, type ReadinessSettings } from '@/lib/readiness/settings';
+import type { ChargePort, ChargerPreference, ParkingHabit, ParkingWay } from '@/lib/readiness/types';
 import { PlanControls } from './plan-controls';
 import { PlanDrawing } from './plan-drawing';
 import { bayName, defaultPlan, planToView, viewToPlan, type Movable, type PlanView } from '@/lib/plan/plan-view';

@@ -1,8 +1,8 @@
 // A length in metres with large − / + buttons and a box to type in. The arrow keys in the box
 // step 0.1 m (0.5 m with Shift), like the arrow keys on the drawing.
 import { useId, useState, type KeyboardEvent } from 'react';
-import { MinusIcon, PlusIcon } from '../icons';
-import { roundTo } from '../../lib/readiness/units';
+import { MinusIcon, PlusIcon } from '@/components/icons';
+import { roundTo } from '@/lib/readiness/units';
 
 type Props = {
   label: string;

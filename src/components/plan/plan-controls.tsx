@@ -1,12 +1,12 @@
 // The plan's controls: every figure on the drawing can be set here with big buttons and number
 // boxes, so nobody has to drag anything (or draw at all).
 import type { ReactNode } from 'react';
-import { carSize, carSizeDefaults } from '../../lib/readiness/plan';
-import type { ChargePort } from '../../lib/readiness/types';
-import { formatNumber } from '../../lib/readiness/units';
+import { carSize, carSizeDefaults } from '@/lib/readiness/plan';
+import type { ChargePort } from '@/lib/readiness/types';
+import { formatNumber } from '@/lib/readiness/units';
 import { ChoiceGroup } from './choice-group';
 import { MetreStepper } from './metre-stepper';
-import { BinIcon, PlusIcon } from '../icons';
+import { BinIcon, PlusIcon } from '@/components/icons';
 import {
   addBay,
   bayName,

@@ -2,9 +2,9 @@
 // chosen way, the cable from the charge point to the port. The charge point and each bay can
 // be picked and moved by pointer (mouse, finger) or by the arrow keys.
 import { useId, useRef, useState, type KeyboardEvent, type PointerEvent } from 'react';
-import { carFootprint, type DrivewayPlan, type ReachVerdict } from '../../lib/readiness/plan';
-import type { ParkingWay } from '../../lib/readiness/types';
-import { formatNumber, roundTo } from '../../lib/readiness/units';
+import { carFootprint, type DrivewayPlan, type ReachVerdict } from '@/lib/readiness/plan';
+import type { ParkingWay } from '@/lib/readiness/types';
+import { formatNumber, roundTo } from '@/lib/readiness/units';
 import { carShape, frameFor, HOUSE_DEPTH, rectToScreen, scaleBarMetres, svgPoints, toScreen, type Frame } from '@/lib/plan/drawing-geometry';
 import { arrowStep, bayName, bayRect, moveChargePoint, nudge, updateBay, type Movable, type PlanView, type ViewRect } from '@/lib/plan/plan-view';
 

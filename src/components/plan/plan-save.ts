@@ -1,8 +1,8 @@
 // Saving the plan: PATCH /api/cases/:id/checklist with { charger: { plan } }, guarded by the
 // case version (If-Match). Answers with an outcome rather than throwing, since a failed save
 // on a phone signal is ordinary.
-import type { DrivewayPlan } from '../../lib/readiness/plan';
-import type { ChargePort, ChargerPreference, ParkingHabit } from '../../lib/readiness/types';
+import type { DrivewayPlan } from '@/lib/readiness/plan';
+import type { ChargePort, ChargerPreference, ParkingHabit } from '@/lib/readiness/types';
 
 /** The parts of the case view the plan needs. */
 export type PlanCaseView = {

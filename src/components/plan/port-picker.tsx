@@ -1,8 +1,8 @@
 // Where the charge port is on the car: seven choices set round a small car seen from above,
 // nose up, so the driver's left is on the left of the screen.
 import { useId } from 'react';
-import { chargePortValues } from '../../lib/readiness/plan';
-import type { ChargePort } from '../../lib/readiness/types';
+import { chargePortValues } from '@/lib/readiness/plan';
+import type { ChargePort } from '@/lib/readiness/types';
 import { portLabels } from '@/lib/vocabulary/plan';
 
 type Props = {

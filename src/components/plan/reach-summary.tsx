@@ -1,10 +1,10 @@
 // Whether the cable reaches, one line per way of parking (and per bay when there are two), in
 // words with an icon: the colour only repeats what the words say.
-import { CheckIcon, InfoIcon, WarningIcon } from '../icons';
-import type { CableSource } from '../../lib/readiness/checks/cable-reach';
-import type { ReachVerdict } from '../../lib/readiness/plan';
-import type { ParkingHabit } from '../../lib/readiness/types';
-import { formatNumber } from '../../lib/readiness/units';
+import { CheckIcon, InfoIcon, WarningIcon } from '@/components/icons';
+import type { CableSource } from '@/lib/readiness/checks/cable-reach';
+import type { ReachVerdict } from '@/lib/readiness/plan';
+import type { ParkingHabit } from '@/lib/readiness/types';
+import { formatNumber } from '@/lib/readiness/units';
 import { cableSentence, verdictDetail, verdictSentence, wayLabels } from '@/lib/vocabulary/plan';
 
 type Props = {

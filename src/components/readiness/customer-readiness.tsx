@@ -4,7 +4,7 @@ import { useEffect, useState } from 'react';
 import type { CheckId, Light } from '@/lib/readiness/types';
 import { lightRank } from '@/lib/readiness/lights';
 import type { CustomerAction } from '@/lib/vocabulary/readiness';
-import { SpinnerIcon } from '../icons';
+import { SpinnerIcon } from '@/components/icons';
 import { LightBadge } from './light-badge';
 
 /** A check as the server hands it to a customer: their own words and where they can act. */

@@ -1,8 +1,8 @@
 // A readiness light as a word, an icon and a colour together: colour is never the only signal.
 // One component for the customer's, the office's and the surveyor's screens.
-import type { Light } from '../../lib/readiness/types';
-import { customerLightWords, staffLightWords } from '../../lib/readiness/lights';
-import { CheckIcon, StopIcon, WarningIcon } from '../icons';
+import type { Light } from '@/lib/readiness/types';
+import { customerLightWords, staffLightWords } from '@/lib/readiness/lights';
+import { CheckIcon, StopIcon, WarningIcon } from '@/components/icons';
 
 const look: Record<Light, string> = {
   green: 'border-clear/30 bg-clear-soft text-clear',

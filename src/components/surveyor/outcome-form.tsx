@@ -1,7 +1,7 @@
 // The surveyor records the visit: outcome, confirmed earthing and main fuse, readings, notes and
 // photos from site. The shared outcome schema checks the form here and again on the server.
 import { useRef, useState, type FormEvent, type ReactNode } from 'react';
-import { zodIssuesToFields } from '../../lib/schemas/checklist';
+import { zodIssuesToFields } from '@/lib/schemas/checklist';
 import {
   confirmedEarthingValues,
   confirmedFuseValues,
@@ -15,8 +15,8 @@ import {
   surveyOutcomeValues,
   type MeasurementId,
   type SurveyOutcome,
-} from '../../lib/schemas/outcome';
-import { CheckIcon, SpinnerIcon, StopIcon, WarningIcon } from '../icons';
+} from '@/lib/schemas/outcome';
+import { CheckIcon, SpinnerIcon, StopIcon, WarningIcon } from '@/components/icons';
 
 type Props = {
   caseId: string;

@@ -1,5 +1,5 @@
 // Browser-side calls to the uploads API, with the server's own messages passed through.
-import type { UploadItem, UploadKind } from '../../lib/schemas/uploads';
+import type { UploadItem, UploadKind } from '@/lib/schemas/uploads';
 
 /** The message of an API error body (`{ error: { message } }`), or a fallback. */
 export function errorMessageOf(body: unknown, fallback: string): string {

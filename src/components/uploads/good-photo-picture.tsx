@@ -2,7 +2,7 @@
 // viewfinder, straight on, in good light. Our own inline SVG, no image files; the words beside it
 // (goodPhotoAdvice) say the same for anyone who cannot see it, so the drawing is decorative.
 import type { ReactNode } from 'react';
-import type { UploadKind } from '../../lib/schemas/uploads';
+import type { UploadKind } from '@/lib/schemas/uploads';
 
 const INK = '#1c302e';
 const PANEL = '#eef0ed';

@@ -1,7 +1,7 @@
 // Several upload slots fed by one list request: the "Photos and documents" page, or any step
 // that asks for more than one kind.
 import { useEffect, useState } from 'react';
-import { uploadKinds, type UploadItem, type UploadKind } from '../../lib/schemas/uploads';
+import { uploadKinds, type UploadItem, type UploadKind } from '@/lib/schemas/uploads';
 import { fetchUploads } from './api';
 import UploadSlot from './upload-slot';
 

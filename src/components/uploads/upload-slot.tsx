@@ -3,15 +3,15 @@
 // a photo); the Uppy widget (upload-widget.tsx: progress bar per file, Retry, resizing) loads
 // only once the customer uses it, so a page full of slots stays light on a phone.
 import { useEffect, useMemo, useRef, useState, type DragEvent } from 'react';
-import { uploadKindInfo, type UploadItem, type UploadKind } from '../../lib/schemas/uploads';
-import { uploadKindStatus } from '../../lib/readiness/upload-status';
-import { slotCaution } from '../../lib/cautions';
+import { uploadKindInfo, type UploadItem, type UploadKind } from '@/lib/schemas/uploads';
+import { uploadKindStatus } from '@/lib/readiness/upload-status';
+import { slotCaution } from '@/lib/cautions';
 import { fetchUploads, removeUpload } from './api';
-import { goodPhotoAdvice } from '../../lib/photo-quality';
+import { goodPhotoAdvice } from '@/lib/photo-quality';
 import { GoodPhotoPicture } from './good-photo-picture';
 import { allowedFileTypes, limitsLine } from './upload-types';
 import type { SlotUppy } from './upload-widget';
-import { AcceptedIcon, CameraIcon, ClockIcon, InfoIcon, MissingIcon, NotAcceptedIcon, StopIcon, WarningIcon } from '../icons';
+import { AcceptedIcon, CameraIcon, ClockIcon, InfoIcon, MissingIcon, NotAcceptedIcon, StopIcon, WarningIcon } from '@/components/icons';
 import { UploadedFile } from './uploaded-file';
 
 export type UploadSlotProps = {

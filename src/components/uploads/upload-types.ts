@@ -1,5 +1,5 @@
 // What a slot accepts, shared by the light drop zone and the Uppy widget. Client-safe.
-import { formatBytes, typesFor, uploadLimits, type UploadKind } from '../../lib/schemas/uploads';
+import { formatBytes, typesFor, uploadLimits, type UploadKind } from '@/lib/schemas/uploads';
 
 const EXTENSIONS: Record<string, string[]> = {
   'image/jpeg': ['.jpg', '.jpeg'],

@@ -10,7 +10,7 @@ import Compressor from '@uppy/compressor';
 import '@uppy/core/dist/style.min.css';
 import '@uppy/dashboard/dist/style.min.css';
 import './uppy-theme.css';
-import { formatBytes, largestUploadBytes, maxBytesFor, type UploadKind } from '../../lib/schemas/uploads';
+import { formatBytes, largestUploadBytes, maxBytesFor, type UploadKind } from '@/lib/schemas/uploads';
 import { errorMessageOf } from './api';
 import { allowedFileTypes, isPdf } from './upload-types';
 

@@ -1,9 +1,9 @@
 // One file already sent: its preview, its review status in words with an icon, the office's
 // reason when it was not accepted, and Remove while the office has not accepted it.
 import { useState } from 'react';
-import { formatBytes, uploadStatusWords, type UploadItem, type UploadStatus } from '../../lib/schemas/uploads';
+import { formatBytes, uploadStatusWords, type UploadItem, type UploadStatus } from '@/lib/schemas/uploads';
 import { removeUpload } from './api';
-import { AcceptedIcon, BinIcon, ClockIcon, DocumentIcon, NotAcceptedIcon, WarningIcon } from '../icons';
+import { AcceptedIcon, BinIcon, ClockIcon, DocumentIcon, NotAcceptedIcon, WarningIcon } from '@/components/icons';
 
 const chipStyle: Record<UploadStatus, string> = {
   waiting: 'border-ground-200 bg-ground-50 text-ground-800',

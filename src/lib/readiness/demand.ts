@@ -2,7 +2,7 @@
 // A2, each rule named), plus the new charger at full load (722.311), per phase on a
 // three-phase supply. A measured maximum demand recorded by the office or surveyor replaces
 // the estimate of the existing loads. Shared by supply-headroom, network-operator and timing.
-import { countOf } from '../grammar';
+import { countOf } from '@/lib/grammar';
 import { chargerRating, knownPhases, type ChargerRating } from './charger';
 import { COMMON_PRACTICE, type ReadinessSettings } from './settings';
 import type { ChecklistAnswers, LoadAnswers, SiteMeasures } from './types';

@@ -1,13 +1,13 @@
 // The customer's checklist: one zod schema per section, shared by the form and the server so
 // both apply the same rule. Pure and client-safe. JSON field names are part of the public API.
 import { z, type ZodError, type ZodIssue } from 'zod';
-import { checkIsoDate } from '../validation/date';
-import { checkMpanCore } from '../validation/mpan';
-import { checkUkPhone } from '../validation/phone';
-import { checkPostcode } from '../validation/postcode';
-import { checkRegistration } from '../validation/registration';
-import { checkVin } from '../validation/vin';
-import { drivewayPlanSchema } from '../readiness/plan';
+import { checkIsoDate } from '@/lib/validation/date';
+import { checkMpanCore } from '@/lib/validation/mpan';
+import { checkUkPhone } from '@/lib/validation/phone';
+import { checkPostcode } from '@/lib/validation/postcode';
+import { checkRegistration } from '@/lib/validation/registration';
+import { checkVin } from '@/lib/validation/vin';
+import { drivewayPlanSchema } from '@/lib/readiness/plan';
 
 /** The data sections, in the order the customer meets them, with their customer-facing titles. */
 export const sectionIds = [

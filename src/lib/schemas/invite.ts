@@ -1,8 +1,8 @@
 // Client-safe: inviting a customer, one at a time or from a CSV file.
 import { z } from 'zod';
 import { emailField } from './sign-in';
-import { checkPostcode } from '../validation/postcode';
-import { checkUkPhone } from '../validation/phone';
+import { checkPostcode } from '@/lib/validation/postcode';
+import { checkUkPhone } from '@/lib/validation/phone';
 
 const optionalText = (max: number) =>
   z

@@ -1,7 +1,7 @@
 // Client-safe: the office's request bodies — stage moves, notes, reviews, chasers, staff.
 import { z } from 'zod';
-import { stages } from '../stages';
-import { checkIsoDate } from '../validation/date';
+import { stages } from '@/lib/stages';
+import { checkIsoDate } from '@/lib/validation/date';
 import { emailField } from './sign-in';
 
 export const stageMoveSchema = z

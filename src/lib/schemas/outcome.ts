@@ -2,7 +2,7 @@
 // and the pure rules by which confirmed values take the place of the customer's answers.
 // Pure and client-safe: no Astro, no database.
 import { z } from 'zod';
-import type { CheckId, CheckResult, ChecklistAnswers, Earthing, EarthingMeasure, FuseRating, SiteMeasures } from '../readiness/types';
+import type { CheckId, CheckResult, ChecklistAnswers, Earthing, EarthingMeasure, FuseRating, SiteMeasures } from '@/lib/readiness/types';
 
 export const surveyOutcomeValues = ['go_ahead', 'go_ahead_with_changes', 'cannot_install'] as const;
 export type SurveyOutcome = (typeof surveyOutcomeValues)[number];

@@ -1,7 +1,7 @@
 // Client-safe: the office queue's query, shared by the table island (which keeps it in the URL)
 // and GET /api/cases (which parses it).
 import { z } from 'zod';
-import { stages } from '../stages';
+import { stages } from '@/lib/stages';
 
 export const lights = ['red', 'amber', 'green'] as const;
 export const queueSortKeys = ['customer', 'address', 'light', 'gaps', 'stage', 'invited', 'activity', 'delivery', 'surveyor', 'survey'] as const;

@@ -1,6 +1,6 @@
 // Client-safe: the admin's settings forms. Readiness thresholds live in src/lib/readiness/settings.ts.
 import { z } from 'zod';
-import { readinessSettingsSchema } from '../readiness/settings';
+import { readinessSettingsSchema } from '@/lib/readiness/settings';
 
 /** Automatic reminders to customers whose case is still being filled in. */
 export const reminderSettingsSchema = z

@@ -1,6 +1,6 @@
 // Text-message opt-in: the customer's mobile and an explicit yes. Pure and client-safe.
 import { z } from 'zod';
-import { checkUkMobile } from '../validation/phone';
+import { checkUkMobile } from '@/lib/validation/phone';
 
 /**
  * PUT /api/cases/:id/texts. The mobile is stored in E.164; `agree` must be exactly true.

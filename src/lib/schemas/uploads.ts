@@ -1,12 +1,12 @@
 // Evidence uploads: the kinds, what each should show, and the limits the server enforces.
 // Pure and client-safe: the upload island mirrors these restrictions, the server applies them.
 import { z } from 'zod';
-import type { UploadKind, UploadStatus } from '../readiness/types';
-import type { PhotoQuality } from '../photo-quality';
+import type { UploadKind, UploadStatus } from '@/lib/readiness/types';
+import type { PhotoQuality } from '@/lib/photo-quality';
 
-export type { UploadKind, UploadStatus } from '../readiness/types';
+export type { UploadKind, UploadStatus } from '@/lib/readiness/types';
 // One rule for "which uploads do these answers call for", shared with the readiness check.
-export { requiredUploadKinds } from '../readiness/checks/documents';
+export { requiredUploadKinds } from '@/lib/readiness/checks/documents';
 
 /** Every upload kind, in the order the customer meets them in the checklist. */
 export const uploadKinds = [

@@ -1,5 +1,5 @@
 // Server-only: writes the audit trail — who changed what, when, with before and after.
-import { auditLog } from '../../db/schema';
+import { auditLog } from '@/db/schema';
 import type { Conn } from './db.server';
 
 export type AuditEntry = {

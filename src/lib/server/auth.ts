@@ -1,7 +1,7 @@
 // Server-only guards, called first in every page and endpoint. Permission is decided here,
 // on the server, never in the browser.
 import type { APIContext, AstroGlobal } from 'astro';
-import type { Role } from '../../db/schema';
+import type { Role } from '@/db/schema';
 import { HttpError } from './http';
 import type { SessionUser } from './users.server';
 

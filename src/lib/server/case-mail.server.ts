@@ -1,6 +1,6 @@
 // Server-only: every e-mail about a case goes through here, so it is logged for the case page.
 import { eq } from 'drizzle-orm';
-import { emailLog } from '../../db/schema';
+import { emailLog } from '@/db/schema';
 import { db } from './db.server';
 import { sendMail, type OutgoingMail } from './mail.server';
 

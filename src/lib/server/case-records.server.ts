@@ -1,7 +1,7 @@
 // Server-only: a case's notes, audit trail and e-mail history, for the case page.
 import { asc, desc, eq } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
-import { auditLog, caseNotes, emailLog, textLog, users } from '../../db/schema';
+import { auditLog, caseNotes, emailLog, textLog, users } from '@/db/schema';
 import { audit } from './audit.server';
 import { db } from './db.server';
 import type { SessionUser } from './users.server';

@@ -1,9 +1,9 @@
 // Server-only: the JSON shape of one case as the API and pages hand it out.
-import type { CaseRow, Role } from '../../db/schema';
-import { fieldWarnings, sectionProgress, type Checklist } from '../schemas/checklist';
-import { checkMpanCore } from '../validation/mpan';
-import type { CheckResult } from '../readiness';
-import { readSiteMeasures } from '../schemas/outcome';
+import type { CaseRow, Role } from '@/db/schema';
+import { fieldWarnings, sectionProgress, type Checklist } from '@/lib/schemas/checklist';
+import { checkMpanCore } from '@/lib/validation/mpan';
+import type { CheckResult } from '@/lib/readiness';
+import { readSiteMeasures } from '@/lib/schemas/outcome';
 import { customerActionsFor } from '@/lib/vocabulary/readiness';
 
 /** Stages in which the customer may still change their answers. */

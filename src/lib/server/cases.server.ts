@@ -1,8 +1,8 @@
 // Server-only: queries on cases, always scoped by who is asking.
 import { and, desc, eq, sql } from 'drizzle-orm';
 import { db } from './db.server';
-import { isUuid } from '../ids';
-import { cases, users } from '../../db/schema';
+import { isUuid } from '@/lib/ids';
+import { cases, users } from '@/db/schema';
 import type { SessionUser } from './users.server';
 
 export const caseSummaryColumns = {

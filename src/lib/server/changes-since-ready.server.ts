@@ -4,7 +4,7 @@
 // and the first one after sign-off is e-mailed to the office. Booking (or any other stage move)
 // means the office has looked again and clears it.
 import { and, eq, isNull, sql } from 'drizzle-orm';
-import { cases, type CaseRow } from '../../db/schema';
+import { cases, type CaseRow } from '@/db/schema';
 import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
 import { config } from './config.server';

@@ -1,8 +1,8 @@
 // Server-only: chasing a customer for what is missing — by hand from the office, or on a schedule.
 import { eq, sql } from 'drizzle-orm';
-import { cases, users, type CaseRow, type User } from '../../db/schema';
-import { customerGaps } from '../gaps';
-import type { Checklist } from '../schemas/checklist';
+import { cases, users, type CaseRow, type User } from '@/db/schema';
+import { customerGaps } from '@/lib/gaps';
+import type { Checklist } from '@/lib/schemas/checklist';
 import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
 import { db } from './db.server';
@@ -11,7 +11,7 @@ import { HttpError } from './http';
 import { firm } from './office.server';
 import { uploadSummaries } from './readiness.server';
 import { signInLink } from './sign-in-links.server';
-import { reminderText } from '../text-rules';
+import { reminderText } from '@/lib/text-rules';
 import { sendCaseText, textDecisionFor } from './text-messages.server';
 
 export type ChaseResult = { caseId: string; sent: boolean; items: string[]; reason?: string; text?: { sent: boolean; reason?: string } };

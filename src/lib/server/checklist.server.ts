@@ -1,17 +1,17 @@
 // Server-only: saving the customer's checklist and sending it for review.
 import { and, eq, sql } from 'drizzle-orm';
-import { cases, type CaseRow } from '../../db/schema';
-import { checklistConflicts, mergeChecklist, sectionProgress, type Checklist, type ChecklistPatch } from '../schemas/checklist';
+import { cases, type CaseRow } from '@/db/schema';
+import { checklistConflicts, mergeChecklist, sectionProgress, type Checklist, type ChecklistPatch } from '@/lib/schemas/checklist';
 import { audit } from './audit.server';
 import { editableStages, toCaseView } from './case-view.server';
 import { transaction } from './db.server';
 import { computeReadiness, readinessColumns } from './readiness.server';
-import { refreshSearchTextSql } from '../../db/search-text';
+import { refreshSearchTextSql } from '@/db/search-text';
 import { readinessSettings } from './settings.server';
 import { HttpError } from './http';
 import { noteChangeSinceReady, tellOfficeOfChange } from './changes-since-ready.server';
 import { firm } from './office.server';
-import { staffLabel } from '../vocabulary/fields';
+import { staffLabel } from '@/lib/vocabulary/fields';
 import type { SessionUser } from './users.server';
 
 /** Only the fields that really change, as { path: [before, after] }, for the audit trail. */

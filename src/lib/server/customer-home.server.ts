@@ -1,10 +1,10 @@
 // Server-only: what the customer's home page shows for each of their cases — readiness in their
 // own words, what is done and still needed, the survey once booked — and how to reach the installer.
 import { desc, eq, inArray } from 'drizzle-orm';
-import { cases, users } from '../../db/schema';
-import type { Checklist } from '../schemas/checklist';
-import type { CheckResult } from '../readiness';
-import { customerNext } from '../customer-next';
+import { cases, users } from '@/db/schema';
+import type { Checklist } from '@/lib/schemas/checklist';
+import type { CheckResult } from '@/lib/readiness';
+import { customerNext } from '@/lib/customer-next';
 import { checksFor } from './case-view.server';
 import { db } from './db.server';
 import { firm } from './office.server';

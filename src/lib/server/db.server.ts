@@ -4,7 +4,7 @@
 import { AsyncLocalStorage } from 'node:async_hooks';
 import postgres from 'postgres';
 import { drizzle } from 'drizzle-orm/postgres-js';
-import * as schema from '../../db/schema';
+import * as schema from '@/db/schema';
 import { config } from './config.server';
 import { HttpError, RETRY_AFTER_SECONDS } from './http';
 

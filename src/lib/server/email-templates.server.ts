@@ -1,9 +1,9 @@
 // Server-only: Groundwork's e-mails, each sent as HTML and as plain text carrying the same words,
 // in one voice. Every template lives here so one test can render them all.
-import { customerPhotoCautions } from '../cautions';
-import { countOf } from '../grammar';
-import { endSentence, quoted } from '../punctuation';
-import { staffLabel } from '../vocabulary/fields';
+import { customerPhotoCautions } from '@/lib/cautions';
+import { countOf } from '@/lib/grammar';
+import { endSentence, quoted } from '@/lib/punctuation';
+import { staffLabel } from '@/lib/vocabulary/fields';
 
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);

@@ -1,7 +1,7 @@
 // Server-only helpers for API endpoints: one JSON error shape, one body parser.
 import type { APIContext } from 'astro';
 import type { ZodType, ZodTypeDef } from 'zod';
-import { zodIssuesToFields } from '../schemas/checklist';
+import { zodIssuesToFields } from '@/lib/schemas/checklist';
 import { isDatabaseUnavailable } from './db-errors.server';
 
 /** Seconds a client should wait before trying again after a 503. */

@@ -3,7 +3,7 @@
 import { createHash } from 'node:crypto';
 import { writeFile } from 'node:fs/promises';
 import sharp from 'sharp';
-import { uploadLimits, type ImageType } from '../schemas/uploads';
+import { uploadLimits, type ImageType } from '@/lib/schemas/uploads';
 
 /** The photo has more pixels than we take. */
 export class TooManyPixels extends Error {

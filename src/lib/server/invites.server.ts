@@ -1,8 +1,8 @@
 // Server-only: inviting a customer — account if new, a case, an e-mailed sign-in link.
 import { and, eq, notInArray } from 'drizzle-orm';
-import { cases, users } from '../../db/schema';
-import { newCaseReference } from '../case-reference';
-import type { Invite } from '../schemas/invite';
+import { cases, users } from '@/db/schema';
+import { newCaseReference } from '@/lib/case-reference';
+import type { Invite } from '@/lib/schemas/invite';
 import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
 import { transaction } from './db.server';

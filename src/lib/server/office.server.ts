@@ -1,6 +1,6 @@
 // Server-only: the installer firm's own details, from settings (falling back to the environment).
 import { eq } from 'drizzle-orm';
-import { settings } from '../../db/schema';
+import { settings } from '@/db/schema';
 import { config } from './config.server';
 import { db } from './db.server';
 

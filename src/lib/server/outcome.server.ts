@@ -2,9 +2,9 @@
 // moves the case to Surveyed with its audit entries and restores the checks with the confirmed
 // values; then the office is told by e-mail.
 import { and, eq } from 'drizzle-orm';
-import { cases, surveyOutcomes, type CaseRow } from '../../db/schema';
-import { earthingLabels, earthingMeasureOptionLabels, measurementFields, measurementIds, mergeSiteMeasures, outcomeLabels, outcomeSiteMeasures, readSiteMeasures, type OutcomeBody } from '../schemas/outcome';
-import { stageLabels, type StageId } from '../stages';
+import { cases, surveyOutcomes, type CaseRow } from '@/db/schema';
+import { earthingLabels, earthingMeasureOptionLabels, measurementFields, measurementIds, mergeSiteMeasures, outcomeLabels, outcomeSiteMeasures, readSiteMeasures, type OutcomeBody } from '@/lib/schemas/outcome';
+import { stageLabels, type StageId } from '@/lib/stages';
 import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
 import { toCaseView, type CaseView } from './case-view.server';

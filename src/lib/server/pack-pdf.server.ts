@@ -6,8 +6,8 @@ import { createRequire } from 'node:module';
 import { inflateSync } from 'node:zlib';
 import PDFDocument from 'pdfkit';
 import sharp from 'sharp';
-import type { Light } from '../readiness';
-import { measurementFields, measurementIds } from '../schemas/outcome';
+import type { Light } from '@/lib/readiness';
+import { measurementFields, measurementIds } from '@/lib/schemas/outcome';
 import {
   cableSourceWords,
   fmt,

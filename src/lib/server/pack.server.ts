@@ -1,9 +1,9 @@
 // Server-only: everything the surveyor's summary pack shows, gathered once per request, so the
 // pack page and the PDF are made from the same facts and cannot drift apart.
 import { and, eq, inArray, sql } from 'drizzle-orm';
-import { cases, surveyOutcomes, uploads, users, type CaseRow, type UploadRow } from '../../db/schema';
-import { packCautions } from '../cautions';
-import { customerGaps, type CustomerGap } from '../gaps';
+import { cases, surveyOutcomes, uploads, users, type CaseRow, type UploadRow } from '@/db/schema';
+import { packCautions } from '@/lib/cautions';
+import { customerGaps, type CustomerGap } from '@/lib/gaps';
 import {
   readPlan,
   requiredUploadKinds,
@@ -18,12 +18,12 @@ import {
   type ParkingWay,
   type ReachVerdict,
   type UploadKindStatus,
-} from '../readiness';
-import { loadFields, sectionIds, sectionPatchSchemas, type Checklist } from '../schemas/checklist';
-import { earthingLabels, outcomeLabels, type ConfirmedEarthing, type Measurements, type SiteCheckResult, type SurveyOutcome } from '../schemas/outcome';
-import { uploadKindInfo, type UploadKind } from '../schemas/uploads';
-import { stageLabels, type StageId } from '../stages';
-import { checkMpanCore } from '../validation/mpan';
+} from '@/lib/readiness';
+import { loadFields, sectionIds, sectionPatchSchemas, type Checklist } from '@/lib/schemas/checklist';
+import { earthingLabels, outcomeLabels, type ConfirmedEarthing, type Measurements, type SiteCheckResult, type SurveyOutcome } from '@/lib/schemas/outcome';
+import { uploadKindInfo, type UploadKind } from '@/lib/schemas/uploads';
+import { stageLabels, type StageId } from '@/lib/stages';
+import { checkMpanCore } from '@/lib/validation/mpan';
 import { planSketch, type PlanSketch } from '@/lib/plan/plan-sketch';
 import { staffAnswer, staffLabel } from '@/lib/vocabulary';
 import { listNotes } from './case-records.server';

@@ -11,10 +11,10 @@
 // - duplicates: a 64-bit difference hash (dHash, as N. Krawetz described it, 2013, from memory)
 //   compared by Hamming distance with the case's photos in other slots.
 import sharp from 'sharp';
-import type { ReadinessSettings } from '../readiness/settings';
-import type { UploadKind } from '../readiness/types';
-import { photoProblemMessage, slotNeeds, type PhotoMeasures, type PhotoProblem, type PhotoQuality } from '../photo-quality';
-import { uploadLimits } from '../schemas/uploads';
+import type { ReadinessSettings } from '@/lib/readiness/settings';
+import type { UploadKind } from '@/lib/readiness/types';
+import { photoProblemMessage, slotNeeds, type PhotoMeasures, type PhotoProblem, type PhotoQuality } from '@/lib/photo-quality';
+import { uploadLimits } from '@/lib/schemas/uploads';
 
 /** The long edge of the working copy the figures are measured on. */
 export const WORKING_EDGE = 1024;

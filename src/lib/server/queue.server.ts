@@ -1,10 +1,10 @@
 // Server-only: the office queue — filter, search, sort and paginate cases in SQL, never in memory.
 import { and, asc, desc, eq, inArray, isNull, or, sql, type SQL } from 'drizzle-orm';
 import { alias } from 'drizzle-orm/pg-core';
-import { cases, uploads, users } from '../../db/schema';
-import type { QueueItem, QueueQuery, QueueSortKey } from '../schemas/queue';
+import { cases, uploads, users } from '@/db/schema';
+import type { QueueItem, QueueQuery, QueueSortKey } from '@/lib/schemas/queue';
 import { db } from './db.server';
-import { searchPattern } from '../../db/search-text';
+import { searchPattern } from '@/db/search-text';
 import type { SessionUser } from './users.server';
 
 const surveyors = alias(users, 'surveyor');

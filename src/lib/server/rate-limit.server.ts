@@ -3,7 +3,7 @@
 // Fixed windows are common practice for throttling sign-in (no published source): simple, and
 // at most twice the limit can land around a window edge.
 import { lt, sql } from 'drizzle-orm';
-import { rateLimits } from '../../db/schema';
+import { rateLimits } from '@/db/schema';
 import { db } from './db.server';
 import { refuseRequest, requestState } from './request-context.server';
 

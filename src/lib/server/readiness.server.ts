@@ -1,12 +1,12 @@
 // Server-only: computes a case's readiness from its answers and uploads, and stores the result
 // on the case so the office queue can filter and sort by it without recomputing.
 import { eq, notInArray } from 'drizzle-orm';
-import { cases, surveyOutcomes, uploads, type CaseRow } from '../../db/schema';
-import { runChecks, type ChecklistAnswers, type ReadinessResult, type ReadinessSettings, type UploadSummary } from '../readiness';
-import { lightRank } from '../readiness/lights';
-import { markConfirmedOnSite, readSiteMeasures, withSiteFindings, type SiteFindings } from '../schemas/outcome';
+import { cases, surveyOutcomes, uploads, type CaseRow } from '@/db/schema';
+import { runChecks, type ChecklistAnswers, type ReadinessResult, type ReadinessSettings, type UploadSummary } from '@/lib/readiness';
+import { lightRank } from '@/lib/readiness/lights';
+import { markConfirmedOnSite, readSiteMeasures, withSiteFindings, type SiteFindings } from '@/lib/schemas/outcome';
 import { db } from './db.server';
-import { refreshSearchTextSql } from '../../db/search-text';
+import { refreshSearchTextSql } from '@/db/search-text';
 import { RECOMPUTE_QUEUE } from './jobs.server';
 import { readinessSettings, todayInGb } from './settings.server';
 import type PgBoss from 'pg-boss';

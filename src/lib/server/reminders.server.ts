@@ -3,12 +3,12 @@
 // sendCaseMail with the same key, so a retried or restarted job can never send twice.
 import type PgBoss from 'pg-boss';
 import { and, eq, inArray, lt, or, isNull, sql } from 'drizzle-orm';
-import { cases } from '../../db/schema';
+import { cases } from '@/db/schema';
 import { chaseCase } from './chase.server';
 import { db } from './db.server';
 import { SEND_QUEUE, SWEEP_QUEUE, startWorkerBoss } from './jobs.server';
 import { hourInGb, reminderSettings } from './settings.server';
-import { withinSendingHours } from '../text-rules';
+import { withinSendingHours } from '@/lib/text-rules';
 
 export { SEND_QUEUE, SWEEP_QUEUE };
 

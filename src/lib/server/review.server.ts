@@ -1,8 +1,8 @@
 // Server-only: the office accepts or rejects an upload; a rejection tells the customer why.
 import { eq } from 'drizzle-orm';
-import { uploads, users, type CaseRow } from '../../db/schema';
-import { uploadKindInfo } from '../schemas/uploads';
-import { uploadKindLabels } from '../readiness/upload-status';
+import { uploads, users, type CaseRow } from '@/db/schema';
+import { uploadKindInfo } from '@/lib/schemas/uploads';
+import { uploadKindLabels } from '@/lib/readiness/upload-status';
 import { audit } from './audit.server';
 import { sendCaseMail } from './case-mail.server';
 import { db, transaction } from './db.server';

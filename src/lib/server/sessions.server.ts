@@ -5,7 +5,7 @@
 // on that one query.
 import { randomUUID } from 'node:crypto';
 import { and, eq, lt, notExists, sql } from 'drizzle-orm';
-import { revokedSessions, users } from '../../db/schema';
+import { revokedSessions, users } from '@/db/schema';
 import { db, type Tx } from './db.server';
 import type { SessionUser } from './users.server';
 

@@ -1,8 +1,8 @@
 // Server-only: the settings table — readiness thresholds and reminder schedule — with defaults.
 import { eq } from 'drizzle-orm';
-import { settings } from '../../db/schema';
-import { resolveReadinessSettings, type ReadinessSettings } from '../readiness';
-import { reminderSettingsSchema, type ReminderSettings } from '../schemas/settings';
+import { settings } from '@/db/schema';
+import { resolveReadinessSettings, type ReadinessSettings } from '@/lib/readiness';
+import { reminderSettingsSchema, type ReminderSettings } from '@/lib/schemas/settings';
 import { db } from './db.server';
 
 /** The database or an open transaction: anything that can run a select. */

@@ -2,7 +2,7 @@
 // They are ordinary Auth.js e-mail tokens, made the way Auth.js makes them (SHA-256 of token +
 // secret stored in verification_tokens), so the same callback route signs the customer in.
 import { randomBytes, createHash } from 'node:crypto';
-import { verificationTokens } from '../../db/schema';
+import { verificationTokens } from '@/db/schema';
 import { config } from './config.server';
 import { db } from './db.server';
 

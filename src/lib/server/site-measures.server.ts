@@ -2,9 +2,9 @@
 // supply — a measured maximum demand, the 722.411.4.1 earthing measure, RA and IΔn. One
 // transaction saves it with its audit entry and recomputes the readiness that reads it.
 import { eq } from 'drizzle-orm';
-import { cases, type CaseRow } from '../../db/schema';
-import { mergeSiteMeasures, readSiteMeasures, type SiteMeasuresBody } from '../schemas/outcome';
-import type { SiteMeasures } from '../readiness';
+import { cases, type CaseRow } from '@/db/schema';
+import { mergeSiteMeasures, readSiteMeasures, type SiteMeasuresBody } from '@/lib/schemas/outcome';
+import type { SiteMeasures } from '@/lib/readiness';
 import { audit } from './audit.server';
 import { toCaseView, type CaseView } from './case-view.server';
 import { transaction } from './db.server';

@@ -1,8 +1,8 @@
 // Server-only: staff accounts — invite (with a set-your-password link), deactivate, set password.
-import { withArticle } from '../grammar';
+import { withArticle } from '@/lib/grammar';
 import { createHash, randomBytes } from 'node:crypto';
 import { and, asc, eq, gt, inArray } from 'drizzle-orm';
-import { users, verificationTokens } from '../../db/schema';
+import { users, verificationTokens } from '@/db/schema';
 import { audit } from './audit.server';
 import { config } from './config.server';
 import { db } from './db.server';

@@ -1,8 +1,8 @@
 // Server-only: moving a case between stages, with only the allowed moves and their conditions.
 import { and, eq } from 'drizzle-orm';
-import { cases, users, type CaseRow } from '../../db/schema';
-import type { StageMove } from '../schemas/office';
-import { allowedMoves, stageLabels, type StageId } from '../stages';
+import { cases, users, type CaseRow } from '@/db/schema';
+import type { StageMove } from '@/lib/schemas/office';
+import { allowedMoves, stageLabels, type StageId } from '@/lib/stages';
 import { audit } from './audit.server';
 import { clearChangesSinceReady } from './changes-since-ready.server';
 import { sendCaseMail } from './case-mail.server';

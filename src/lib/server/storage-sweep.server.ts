@@ -7,7 +7,7 @@ import { opendir, rm, stat } from 'node:fs/promises';
 import { join } from 'node:path';
 import { inArray, or } from 'drizzle-orm';
 import type PgBoss from 'pg-boss';
-import { uploads } from '../../db/schema';
+import { uploads } from '@/db/schema';
 import { db } from './db.server';
 import { uploadStorage, type Storage } from './storage/index.server';
 import { scratchDir } from './uploads.server';

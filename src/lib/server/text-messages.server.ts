@@ -2,8 +2,8 @@
 // written first, delivery receipts and STOP replies. Off (and harmless) when the SMS provider's
 // variables are unset: every function then answers "not sent" and the webhooks 404.
 import { and, desc, eq, isNull, or, sql } from 'drizzle-orm';
-import { textConsents, textLog } from '../../db/schema';
-import { redactLinks, isStopReply, textDecision, type TextConsent, type TextDecision } from '../text-rules';
+import { textConsents, textLog } from '@/db/schema';
+import { redactLinks, isStopReply, textDecision, type TextConsent, type TextDecision } from '@/lib/text-rules';
 import { audit } from './audit.server';
 import { config } from './config.server';
 import { db } from './db.server';

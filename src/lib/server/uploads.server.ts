@@ -1,7 +1,7 @@
 // Server-only: receiving, re-encoding, storing, serving and deleting evidence uploads.
 // The body is streamed to a temporary file and cut off at the limit; images are decoded and
 // re-encoded so no metadata survives; the file moves into storage before its row commits.
-import { countOf } from '../grammar';
+import { countOf } from '@/lib/grammar';
 import { createHash, randomUUID } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import { mkdir, open, rm, type FileHandle } from 'node:fs/promises';
@@ -12,7 +12,7 @@ import busboy from 'busboy';
 import { fileTypeFromBuffer } from 'file-type';
 import sharp from 'sharp';
 import { and, asc, eq, isNotNull, ne, sql } from 'drizzle-orm';
-import { cases, uploadKindEnum, uploads, type CaseRow, type UploadRow } from '../../db/schema';
+import { cases, uploadKindEnum, uploads, type CaseRow, type UploadRow } from '@/db/schema';
 import {
   documentTypes,
   formatBytes,
@@ -28,24 +28,24 @@ import {
   type StoredType,
   type UploadItem,
   type UploadKind,
-} from '../schemas/uploads';
+} from '@/lib/schemas/uploads';
 import { audit } from './audit.server';
 import { reencodePhoto, TooManyPixels, Undecodable } from './images.server';
 import { assessPhoto, measurePhoto, type Measured, type OtherPhoto } from './photo-quality.server';
-import type { PhotoQuality } from '../photo-quality';
-import type { ReadinessSettings } from '../readiness/settings';
+import type { PhotoQuality } from '@/lib/photo-quality';
+import type { ReadinessSettings } from '@/lib/readiness/settings';
 import { editableStages } from './case-view.server';
 import { findVisibleCase } from './cases.server';
 import { config } from './config.server';
 import { db, transaction } from './db.server';
-import { isUuid } from '../ids';
+import { isUuid } from '@/lib/ids';
 import { HttpError, notFound } from './http';
 import { refreshReadiness } from './readiness.server';
 import { readinessSettings } from './settings.server';
 import { uploadRateLimits } from './rate-limit.server';
 import { noteChangeSinceReady, tellOfficeOfChange } from './changes-since-ready.server';
 import { firm } from './office.server';
-import { uploadKindLabels } from '../readiness/upload-status';
+import { uploadKindLabels } from '@/lib/readiness/upload-status';
 import { uploadStorage } from './storage/index.server';
 import type { SessionUser } from './users.server';
 

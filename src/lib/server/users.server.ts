@@ -1,7 +1,7 @@
 // Server-only: queries on users (customers and staff).
 import { and, eq, sql } from 'drizzle-orm';
 import { db } from './db.server';
-import { users, type Role, type User } from '../../db/schema';
+import { users, type Role, type User } from '@/db/schema';
 
 export type SessionUser = Pick<User, 'id' | 'email' | 'name' | 'role'>;
 

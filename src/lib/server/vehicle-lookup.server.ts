@@ -2,9 +2,9 @@
 // PostgreSQL, never blocking (slow, failing or unknown answers leave the customer to type the
 // make), and off when the enquiry service's key is unset.
 import { and, eq, gt, lt, sql } from 'drizzle-orm';
-import { caseVehicleLookups, lookupCounters, vehicleLookupCache, type CaseRow } from '../../db/schema';
-import { fuelAdvice, makeWords } from '../vehicle-fuel';
-import { checkRegistration } from '../validation/registration';
+import { caseVehicleLookups, lookupCounters, vehicleLookupCache, type CaseRow } from '@/db/schema';
+import { fuelAdvice, makeWords } from '@/lib/vehicle-fuel';
+import { checkRegistration } from '@/lib/validation/registration';
 import { config } from './config.server';
 import { db } from './db.server';
 import { HttpError } from './http';

@@ -32,7 +32,7 @@ export const kindTitle = (kind: UploadKind) => uploadKindInfo[kind]?.title ?? ki
 export const uploadStateWords = { accepted: 'Accepted', waiting: 'Waiting for review', rejected: 'Rejected', missing: 'Missing' } as const;
 
 /** The network operator's two routes, named as the trade body names its process (staff only). */
-export { networkRouteNames } from '../readiness/network-route';
+export { networkRouteNames } from '@/lib/readiness/network-route';
 
 /** Each route with what it asks of the installer, for the pack and the PDF. */
 export const networkRouteWords: Record<string, string> = {

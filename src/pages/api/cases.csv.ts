@@ -1,10 +1,10 @@
 import Papa from 'papaparse';
-import { api, HttpError } from '../../lib/server/http';
-import { requireRole } from '../../lib/server/auth';
-import { queueRows } from '../../lib/server/queue.server';
-import { queueQueryFromParams } from '../../lib/schemas/queue';
-import { zodIssuesToFields } from '../../lib/schemas/checklist';
-import { stageLabels } from '../../lib/stages';
+import { api, HttpError } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { queueRows } from '@/lib/server/queue.server';
+import { queueQueryFromParams } from '@/lib/schemas/queue';
+import { zodIssuesToFields } from '@/lib/schemas/checklist';
+import { stageLabels } from '@/lib/stages';
 
 const header = ['Reference', 'Customer', 'E-mail', 'Address', 'Town', 'Postcode', 'Readiness', 'Open checks', 'Checks open', 'Stage', 'Invited', 'Days since invite', 'Last customer activity', 'Delivery date', 'Surveyor', 'Survey date', 'Photos flagged'];
 

@@ -1,6 +1,6 @@
 import type { APIContext } from 'astro';
-import { json } from '../../lib/server/http';
-import { sqlClient } from '../../lib/server/db.server';
+import { json } from '@/lib/server/http';
+import { sqlClient } from '@/lib/server/db.server';
 
 /** GET /api/health — is the app up, and can it reach PostgreSQL? */
 export async function GET(_ctx: APIContext): Promise<Response> {

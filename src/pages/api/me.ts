@@ -1,5 +1,5 @@
-import { api, json } from '../../lib/server/http';
-import { requireUser } from '../../lib/server/auth';
+import { api, json } from '@/lib/server/http';
+import { requireUser } from '@/lib/server/auth';
 
 /** GET /api/me — the signed-in user, or 401. */
 export const GET = api(async (ctx) => {

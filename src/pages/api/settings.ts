@@ -1,11 +1,11 @@
-import { api, json, parseJsonBody } from '../../lib/server/http';
-import { requireRole } from '../../lib/server/auth';
-import { readinessSettings, reminderSettings, saveSetting } from '../../lib/server/settings.server';
-import { queueReadinessRecompute } from '../../lib/server/jobs.server';
-import { audit } from '../../lib/server/audit.server';
-import { db } from '../../lib/server/db.server';
-import { settingsUpdateSchema } from '../../lib/schemas/settings';
-import { defaultReadinessSettings, settingDescriptions } from '../../lib/readiness';
+import { api, json, parseJsonBody } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { readinessSettings, reminderSettings, saveSetting } from '@/lib/server/settings.server';
+import { queueReadinessRecompute } from '@/lib/server/jobs.server';
+import { audit } from '@/lib/server/audit.server';
+import { db } from '@/lib/server/db.server';
+import { settingsUpdateSchema } from '@/lib/schemas/settings';
+import { defaultReadinessSettings, settingDescriptions } from '@/lib/readiness';
 
 async function current() {
   return { readiness: await readinessSettings(), reminders: await reminderSettings(), defaults: defaultReadinessSettings, descriptions: settingDescriptions };

@@ -1,13 +1,13 @@
 // Cable reach: whether the charging cable reaches the car's charge port in every way the
 // car is parked, measured on the customer's driveway plan.
-import { withArticle } from '../../grammar';
-import { carSize, otherBaysOccupied, readPlan, reachVerdict, type ReachVerdict } from '../plan';
-import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
-import type { ChargePort, ChargerAnswers, CheckInput, CheckResult, ParkingHabit } from '../types';
-import { formatNumber, positiveOrNull } from '../units';
-import { optionWords } from '../../vocabulary/fields';
-import { cableSourceWords } from '../../vocabulary/pack';
-import { portLabels, portStaffLabels, wayLabels, wayPhrases } from '../../vocabulary/plan';
+import { withArticle } from '@/lib/grammar';
+import { carSize, otherBaysOccupied, readPlan, reachVerdict, type ReachVerdict } from '@/lib/readiness/plan';
+import { COMMON_PRACTICE, type ReadinessSettings } from '@/lib/readiness/settings';
+import type { ChargePort, ChargerAnswers, CheckInput, CheckResult, ParkingHabit } from '@/lib/readiness/types';
+import { formatNumber, positiveOrNull } from '@/lib/readiness/units';
+import { optionWords } from '@/lib/vocabulary/fields';
+import { cableSourceWords } from '@/lib/vocabulary/pack';
+import { portLabels, portStaffLabels, wayLabels, wayPhrases } from '@/lib/vocabulary/plan';
 
 // The car sizes behind the sketch are from memory (see plan.ts); staff read only "common practice".
 const SOURCE = `Geometry of the customer's driveway plan; tethered cable commonly about 5 m (IEC 62196-2 connectors; ${COMMON_PRACTICE}); slack allowance and car sizes: ${COMMON_PRACTICE}`;

@@ -1,7 +1,7 @@
 // Cable run: for each candidate size of armoured copper cable, the corrected capacity against
 // the protective device (Ib ≤ In ≤ Iz, Regulation 433.1.1) and the voltage drop against what is
 // left of the limit; the smallest size that passes both; and a flag for costly routes.
-import { optionWords } from '../../vocabulary/fields';
+import { optionWords } from '@/lib/vocabulary/fields';
 import {
   CABLE_SIZES,
   cableTableSources,
@@ -10,12 +10,12 @@ import {
   voltageDropVolts,
   type Phases,
   type ReferenceMethod,
-} from '../cable-tables';
-import { chargerRating, type ChargerRating } from '../charger';
-import { atLeast } from '../lights';
-import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
-import type { CableRoute, CheckInput, CheckResult, Light } from '../types';
-import { formatNumber, positiveOrNull, roundTo } from '../units';
+} from '@/lib/readiness/cable-tables';
+import { chargerRating, type ChargerRating } from '@/lib/readiness/charger';
+import { atLeast } from '@/lib/readiness/lights';
+import { COMMON_PRACTICE, type ReadinessSettings } from '@/lib/readiness/settings';
+import type { CableRoute, CheckInput, CheckResult, Light } from '@/lib/readiness/types';
+import { formatNumber, positiveOrNull, roundTo } from '@/lib/readiness/units';
 
 const SOURCE = `BS 7671:2018+A2:2022: Regulation 433.1.1 (Ib ≤ In ≤ Iz), 512.1.5 (terminal temperature), 523.9 (thermal insulation); Appendix 4 Tables 4D4A / 4E4A (capacity), 4E4B (voltage drop), 4B1–4B3 and 4C1 (correction factors), Table 4Ab (5% limit); long or complex routes: ${COMMON_PRACTICE}`;
 const TITLE = 'Cable from your consumer unit to the charge point';

@@ -1,8 +1,8 @@
 // Documents: each upload the answers call for is present and accepted by the office.
-import { COMMON_PRACTICE } from '../settings';
-import type { ChecklistAnswers, CheckInput, CheckResult, Light, UploadKind } from '../types';
-import { uploadKindLabels, uploadKindStatus, type UploadKindStatus } from '../upload-status';
-import { endSentence } from '../../punctuation';
+import { COMMON_PRACTICE } from '@/lib/readiness/settings';
+import type { ChecklistAnswers, CheckInput, CheckResult, Light, UploadKind } from '@/lib/readiness/types';
+import { uploadKindLabels, uploadKindStatus, type UploadKindStatus } from '@/lib/readiness/upload-status';
+import { endSentence } from '@/lib/punctuation';
 
 /** A reason inside brackets, without the full stop the office may have typed: "(Too dark)". */
 const bracketed = (reason: string | null) => (reason ? ` (${reason.replace(/[.\s]+$/, '')})` : '');

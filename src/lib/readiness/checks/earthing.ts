@@ -1,9 +1,9 @@
 // Earthing: whether an outdoor charge point on PME (or unknown) earthing needs an earth
 // electrode or an open-PEN device, and whether open soil near the charge point makes an
 // electrode practical.
-import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
-import type { CheckInput, CheckResult, Earthing, EarthingMeasure, Light } from '../types';
-import { formatNumber } from '../units';
+import { COMMON_PRACTICE, type ReadinessSettings } from '@/lib/readiness/settings';
+import type { CheckInput, CheckResult, Earthing, EarthingMeasure, Light } from '@/lib/readiness/types';
+import { formatNumber } from '@/lib/readiness/units';
 
 const SOURCE = `BS 7671:2018+A2:2022 Regulation 722.411.4.1 (PME and outdoor charging points); 411.5.3 (RA × IΔn ≤ 50 V); Table 41.5 Note 2 (above 200 Ω may not be stable; ${COMMON_PRACTICE} as applied here); 722.531.3.101 (RCD); soft ground near the charge point: ${COMMON_PRACTICE}`;
 const TITLE = 'Earthing for an outdoor charge point';

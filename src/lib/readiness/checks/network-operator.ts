@@ -1,8 +1,8 @@
 // Network operator: can the job install and notify within 28 days, or must it apply first?
-import { checkMpanCore } from '../../validation/mpan';
-import { decideNetworkRoute, ENA_SOURCE, networkRouteNames, type NetworkRouteDecision } from '../network-route';
-import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
-import type { CheckInput, CheckResult, Light } from '../types';
+import { checkMpanCore } from '@/lib/validation/mpan';
+import { decideNetworkRoute, ENA_SOURCE, networkRouteNames, type NetworkRouteDecision } from '@/lib/readiness/network-route';
+import { COMMON_PRACTICE, type ReadinessSettings } from '@/lib/readiness/settings';
+import type { CheckInput, CheckResult, Light } from '@/lib/readiness/types';
 
 const SOURCE = `${ENA_SOURCE}; lead time of a supply upgrade: ${COMMON_PRACTICE}`;
 

@@ -1,8 +1,8 @@
 // Parking: private off-street parking is needed; a bay not attached to the home needs evidence.
-import { optionWords } from '../../vocabulary/fields';
-import { COMMON_PRACTICE } from '../settings';
-import type { CheckInput, CheckResult, ParkingKind } from '../types';
-import { uploadKindStatus, type UploadKindStatus } from '../upload-status';
+import { optionWords } from '@/lib/vocabulary/fields';
+import { COMMON_PRACTICE } from '@/lib/readiness/settings';
+import type { CheckInput, CheckResult, ParkingKind } from '@/lib/readiness/types';
+import { uploadKindStatus, type UploadKindStatus } from '@/lib/readiness/upload-status';
 
 const SOURCE = `${COMMON_PRACTICE} (home charge points and funding schemes expect private off-street parking; check the current scheme rules)`;
 const TITLE = 'Off-street parking';

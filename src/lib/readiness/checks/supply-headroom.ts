@@ -1,11 +1,11 @@
 // Supply headroom: does the main fuse (cut-out) cover the home's assessed maximum demand with
 // the new charger running at full load, and does the supply have the phases the charger needs?
-import { withArticle } from '../../grammar';
-import { assessMaximumDemand, REG_722_311, TABLE_A2, type DemandAssessment } from '../demand';
-import { atLeast, worstLight } from '../lights';
-import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
-import type { CheckInput, CheckResult, ChecklistAnswers, Light } from '../types';
-import { formatNumber, roundTo } from '../units';
+import { withArticle } from '@/lib/grammar';
+import { assessMaximumDemand, REG_722_311, TABLE_A2, type DemandAssessment } from '@/lib/readiness/demand';
+import { atLeast, worstLight } from '@/lib/readiness/lights';
+import { COMMON_PRACTICE, type ReadinessSettings } from '@/lib/readiness/settings';
+import type { CheckInput, CheckResult, ChecklistAnswers, Light } from '@/lib/readiness/types';
+import { formatNumber, roundTo } from '@/lib/readiness/units';
 
 /** Largest standard domestic cut-out rating (BS 7657 ratings 60, 80, 100 A). */
 export const LARGEST_DOMESTIC_FUSE_AMPS = 100;

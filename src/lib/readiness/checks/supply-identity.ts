@@ -1,6 +1,6 @@
 // Supply identity: the MPAN core is present, passes its check digit and names a region.
-import { checkMpanCore, INDEPENDENT_NETWORK } from '../../validation/mpan';
-import type { CheckInput, CheckResult } from '../types';
+import { checkMpanCore, INDEPENDENT_NETWORK } from '@/lib/validation/mpan';
+import type { CheckInput, CheckResult } from '@/lib/readiness/types';
 
 // The independent-network IDs 24–37 are from memory, not seen in the market operator's list: staff
 // are told to confirm an unfamiliar ID against that published list instead.

@@ -1,9 +1,9 @@
 // Timing: can the survey, the install and any network-operator step fit before the car arrives?
-import { countOf } from '../../grammar';
-import { addDays, isoDayNumber } from '../dates';
-import { decideNetworkRoute, ENA_SOURCE, networkRouteNames } from '../network-route';
-import { COMMON_PRACTICE, type ReadinessSettings } from '../settings';
-import type { CheckInput, CheckResult, Light } from '../types';
+import { countOf } from '@/lib/grammar';
+import { addDays, isoDayNumber } from '@/lib/readiness/dates';
+import { decideNetworkRoute, ENA_SOURCE, networkRouteNames } from '@/lib/readiness/network-route';
+import { COMMON_PRACTICE, type ReadinessSettings } from '@/lib/readiness/settings';
+import type { CheckInput, CheckResult, Light } from '@/lib/readiness/types';
 
 const SOURCE = `Lead times from settings (${COMMON_PRACTICE}); network operator step: ${ENA_SOURCE}`;
 const TITLE = 'Ready before your car arrives';

@@ -1,7 +1,7 @@
 // Server-only: the parameters of a provider's webhook, from the query (GET) or a JSON body
 // (POST-JSON, the setting to choose in the provider's dashboard). Values become strings, as signed.
 import { z } from 'zod';
-import { HttpError, parseJsonBody } from '../http';
+import { HttpError, parseJsonBody } from '@/lib/server/http';
 
 const paramsSchema = z.record(z.union([z.string(), z.number(), z.boolean()]).transform(String));
 

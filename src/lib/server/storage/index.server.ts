@@ -1,5 +1,5 @@
 // Server-only: the one Storage the app uses, chosen here so endpoints never name a backend.
-import { config } from '../config.server';
+import { config } from '@/lib/server/config.server';
 import { LocalDiskStorage } from './local-disk.server';
 import { S3Storage } from './s3.server';
 import type { Storage } from './storage';

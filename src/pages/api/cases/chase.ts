@@ -1,10 +1,10 @@
 import { inArray } from 'drizzle-orm';
-import { api, json, parseJsonBody } from '../../../lib/server/http';
-import { requireRole } from '../../../lib/server/auth';
-import { chaseCase } from '../../../lib/server/chase.server';
-import { db } from '../../../lib/server/db.server';
-import { cases } from '../../../db/schema';
-import { bulkChaseSchema } from '../../../lib/schemas/office';
+import { api, json, parseJsonBody } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { chaseCase } from '@/lib/server/chase.server';
+import { db } from '@/lib/server/db.server';
+import { cases } from '@/db/schema';
+import { bulkChaseSchema } from '@/lib/schemas/office';
 
 /** POST /api/cases/chase — chase every selected case; says which were sent and why not. */
 export const POST = api(async (ctx) => {

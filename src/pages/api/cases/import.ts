@@ -1,11 +1,11 @@
 import { and, inArray, notInArray, eq } from 'drizzle-orm';
-import { api, HttpError, json, parseJsonBody } from '../../../lib/server/http';
-import { requireRole } from '../../../lib/server/auth';
-import { inviteCustomer } from '../../../lib/server/invites.server';
-import { db } from '../../../lib/server/db.server';
-import { cases, users } from '../../../db/schema';
-import { inviteImportSchema, inviteSchema, type Invite } from '../../../lib/schemas/invite';
-import { zodIssuesToFields } from '../../../lib/schemas/checklist';
+import { api, HttpError, json, parseJsonBody } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { inviteCustomer } from '@/lib/server/invites.server';
+import { db } from '@/lib/server/db.server';
+import { cases, users } from '@/db/schema';
+import { inviteImportSchema, inviteSchema, type Invite } from '@/lib/schemas/invite';
+import { zodIssuesToFields } from '@/lib/schemas/checklist';
 
 type RowResult = { row: number; ok: boolean; email?: string; fields?: Record<string, string>; id?: string };
 

@@ -1,13 +1,13 @@
-import { api, HttpError, json } from '../../../lib/server/http';
-import { requireUser } from '../../../lib/server/auth';
-import { listCustomerCases } from '../../../lib/server/cases.server';
-import { queuePage } from '../../../lib/server/queue.server';
-import { queueQueryFromParams } from '../../../lib/schemas/queue';
-import { zodIssuesToFields } from '../../../lib/schemas/checklist';
-import { inviteSchema } from '../../../lib/schemas/invite';
-import { parseJsonBody } from '../../../lib/server/http';
-import { requireRole } from '../../../lib/server/auth';
-import { inviteCustomer } from '../../../lib/server/invites.server';
+import { api, HttpError, json } from '@/lib/server/http';
+import { requireUser } from '@/lib/server/auth';
+import { listCustomerCases } from '@/lib/server/cases.server';
+import { queuePage } from '@/lib/server/queue.server';
+import { queueQueryFromParams } from '@/lib/schemas/queue';
+import { zodIssuesToFields } from '@/lib/schemas/checklist';
+import { inviteSchema } from '@/lib/schemas/invite';
+import { parseJsonBody } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { inviteCustomer } from '@/lib/server/invites.server';
 
 /** GET /api/cases — a customer's own cases; for staff, the filtered, sorted, paged queue. */
 export const GET = api(async (ctx) => {

@@ -1,7 +1,7 @@
 import type { APIRoute } from 'astro';
-import { api } from '../../../lib/server/http';
-import { applyTextEvent, readTextWebhook } from '../../../lib/server/text-messages.server';
-import { webhookParams } from '../../../lib/server/sms/webhook.server';
+import { api } from '@/lib/server/http';
+import { applyTextEvent, readTextWebhook } from '@/lib/server/text-messages.server';
+import { webhookParams } from '@/lib/server/sms/webhook.server';
 
 /** GET or POST /api/sms/inbound — a reply to one of our texts (signed); STOP withdraws consent at once. */
 const handler: APIRoute = api(async (ctx) => {

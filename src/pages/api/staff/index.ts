@@ -1,7 +1,7 @@
-import { api, json, parseJsonBody } from '../../../lib/server/http';
-import { requireRole } from '../../../lib/server/auth';
-import { inviteStaff, listStaff } from '../../../lib/server/staff.server';
-import { staffInviteSchema } from '../../../lib/schemas/office';
+import { api, json, parseJsonBody } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { inviteStaff, listStaff } from '@/lib/server/staff.server';
+import { staffInviteSchema } from '@/lib/schemas/office';
 
 /** GET /api/staff — every admin and surveyor (admin). */
 export const GET = api(async (ctx) => {

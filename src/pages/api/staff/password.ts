@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { api, json, parseJsonBody } from '../../../lib/server/http';
-import { setPasswordWithToken } from '../../../lib/server/staff.server';
-import { setPasswordSchema } from '../../../lib/schemas/office';
+import { api, json, parseJsonBody } from '@/lib/server/http';
+import { setPasswordWithToken } from '@/lib/server/staff.server';
+import { setPasswordSchema } from '@/lib/schemas/office';
 
 const bodySchema = setPasswordSchema.extend({ email: z.string().email('Not an e-mail address.'), token: z.string().regex(/^[0-9a-f]{64}$/, 'Not a valid link.') });
 

@@ -1,6 +1,6 @@
-import { api, json, notFound } from '../../../lib/server/http';
-import { requireUser } from '../../../lib/server/auth';
-import { deleteUpload, findVisibleUpload, uploadResponse } from '../../../lib/server/uploads.server';
+import { api, json, notFound } from '@/lib/server/http';
+import { requireUser } from '@/lib/server/auth';
+import { deleteUpload, findVisibleUpload, uploadResponse } from '@/lib/server/uploads.server';
 
 /** GET /api/uploads/:id[?size=thumb] — the stored file, streamed, to the case's customer and staff. */
 export const GET = api(async (ctx) => {

@@ -1,7 +1,7 @@
-import { api, json, notFound } from '../../../../lib/server/http';
-import { requireRole } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { listAudit } from '../../../../lib/server/case-records.server';
+import { api, json, notFound } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { listAudit } from '@/lib/server/case-records.server';
 
 /** GET /api/cases/:id/audit — who changed what, when, newest first (staff). */
 export const GET = api(async (ctx) => {

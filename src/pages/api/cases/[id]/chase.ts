@@ -1,7 +1,7 @@
-import { api, json, notFound } from '../../../../lib/server/http';
-import { requireRole } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { chaseFromOffice } from '../../../../lib/server/chase.server';
+import { api, json, notFound } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { chaseFromOffice } from '@/lib/server/chase.server';
 
 /** POST /api/cases/:id/chase — e-mail the customer exactly what is missing (admin). */
 export const POST = api(async (ctx) => {

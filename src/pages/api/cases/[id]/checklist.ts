@@ -1,8 +1,8 @@
-import { api, HttpError, json, notFound, parseJsonBody } from '../../../../lib/server/http';
-import { requireRole } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { saveChecklist } from '../../../../lib/server/checklist.server';
-import { checklistPatchSchema } from '../../../../lib/schemas/checklist';
+import { api, HttpError, json, notFound, parseJsonBody } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { saveChecklist } from '@/lib/server/checklist.server';
+import { checklistPatchSchema } from '@/lib/schemas/checklist';
 
 /** The optional If-Match header carries the version the client last saw. */
 function ifMatchVersion(request: Request): number | null {

@@ -1,8 +1,8 @@
-import { api, json, notFound, parseJsonBody } from '../../../../lib/server/http';
-import { requireRole } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { confirmDetails } from '../../../../lib/server/checklist.server';
-import { confirmDetailsSchema } from '../../../../lib/schemas/confirm-details';
+import { api, json, notFound, parseJsonBody } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { confirmDetails } from '@/lib/server/checklist.server';
+import { confirmDetailsSchema } from '@/lib/schemas/confirm-details';
 
 /** POST /api/cases/:id/confirm-details — the customer confirms the details the installer filled in. */
 export const POST = api(async (ctx) => {

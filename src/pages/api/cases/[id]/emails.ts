@@ -1,7 +1,7 @@
-import { api, json, notFound } from '../../../../lib/server/http';
-import { requireRole } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { listEmails } from '../../../../lib/server/case-records.server';
+import { api, json, notFound } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { listEmails } from '@/lib/server/case-records.server';
 
 /** GET /api/cases/:id/emails — every e-mail sent about the case, newest first (office: with its text; surveyor: kind and subject). */
 export const GET = api(async (ctx) => {

@@ -1,7 +1,7 @@
-import { api, json, notFound } from '../../../../lib/server/http';
-import { requireUser } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { toCaseView } from '../../../../lib/server/case-view.server';
+import { api, json, notFound } from '@/lib/server/http';
+import { requireUser } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { toCaseView } from '@/lib/server/case-view.server';
 
 /** GET /api/cases/:id — the case with its checklist and progress; 404 unless it is yours to see. */
 export const GET = api(async (ctx) => {

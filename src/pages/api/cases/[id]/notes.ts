@@ -1,8 +1,8 @@
-import { api, json, notFound, parseJsonBody } from '../../../../lib/server/http';
-import { requireRole } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { addNote, listNotes } from '../../../../lib/server/case-records.server';
-import { noteSchema } from '../../../../lib/schemas/office';
+import { api, json, notFound, parseJsonBody } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { addNote, listNotes } from '@/lib/server/case-records.server';
+import { noteSchema } from '@/lib/schemas/office';
 
 /** GET /api/cases/:id/notes — office notes, oldest first (staff). */
 export const GET = api(async (ctx) => {

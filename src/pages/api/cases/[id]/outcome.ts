@@ -1,8 +1,8 @@
-import { api, json, notFound, parseJsonBody } from '../../../../lib/server/http';
-import { requireRole } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { recordOutcome } from '../../../../lib/server/outcome.server';
-import { outcomeSchema } from '../../../../lib/schemas/outcome';
+import { api, json, notFound, parseJsonBody } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { recordOutcome } from '@/lib/server/outcome.server';
+import { outcomeSchema } from '@/lib/schemas/outcome';
 
 /** POST /api/cases/:id/outcome — the assigned surveyor (or the office) records the visit; 409 unless Survey booked. */
 export const POST = api(async (ctx) => {

@@ -1,7 +1,7 @@
-import { api, notFound } from '../../../../lib/server/http';
-import { requireUser } from '../../../../lib/server/auth';
-import { findPackCase, gatherPack } from '../../../../lib/server/pack.server';
-import { packFileName, packPdf } from '../../../../lib/server/pack-pdf.server';
+import { api, notFound } from '@/lib/server/http';
+import { requireUser } from '@/lib/server/auth';
+import { findPackCase, gatherPack } from '@/lib/server/pack.server';
+import { packFileName, packPdf } from '@/lib/server/pack-pdf.server';
 
 /** GET /api/cases/:id/pack.pdf — the survey pack as a PDF, for the office and the assigned surveyor. */
 export const GET = api(async (ctx) => {

@@ -1,8 +1,8 @@
-import { api, json, notFound, parseJsonBody } from '../../../../lib/server/http';
-import { requireRole } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { recordSiteMeasures } from '../../../../lib/server/site-measures.server';
-import { siteMeasuresSchema } from '../../../../lib/schemas/outcome';
+import { api, json, notFound, parseJsonBody } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { recordSiteMeasures } from '@/lib/server/site-measures.server';
+import { siteMeasuresSchema } from '@/lib/schemas/outcome';
 
 /** PUT /api/cases/:id/site-measures — the office or surveyor records a measured maximum demand, the earthing measure, RA or IΔn. */
 export const PUT = api(async (ctx) => {

@@ -1,12 +1,12 @@
-import { api, json, notFound, parseJsonBody } from '../../../../lib/server/http';
-import { requireRole } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { submitCase } from '../../../../lib/server/checklist.server';
-import { config } from '../../../../lib/server/config.server';
-import { caseSubmittedEmail } from '../../../../lib/server/email-templates.server';
-import { sendCaseMail } from '../../../../lib/server/case-mail.server';
-import { firm } from '../../../../lib/server/office.server';
-import { submitSchema } from '../../../../lib/schemas/submit';
+import { api, json, notFound, parseJsonBody } from '@/lib/server/http';
+import { requireRole } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { submitCase } from '@/lib/server/checklist.server';
+import { config } from '@/lib/server/config.server';
+import { caseSubmittedEmail } from '@/lib/server/email-templates.server';
+import { sendCaseMail } from '@/lib/server/case-mail.server';
+import { firm } from '@/lib/server/office.server';
+import { submitSchema } from '@/lib/schemas/submit';
 
 /** POST /api/cases/:id/submit — the customer sends the case for review; the office is e-mailed. */
 export const POST = api(async (ctx) => {

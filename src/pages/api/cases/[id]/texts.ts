@@ -1,8 +1,8 @@
-import { api, json, notFound, parseJsonBody } from '../../../../lib/server/http';
-import { requireRole, requireUser } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { giveTextConsent, textConsentView, withdrawTextConsent } from '../../../../lib/server/text-messages.server';
-import { textConsentSchema } from '../../../../lib/schemas/texts';
+import { api, json, notFound, parseJsonBody } from '@/lib/server/http';
+import { requireRole, requireUser } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { giveTextConsent, textConsentView, withdrawTextConsent } from '@/lib/server/text-messages.server';
+import { textConsentSchema } from '@/lib/schemas/texts';
 
 /** GET /api/cases/:id/texts — whether texts are on and the case's customer has agreed. */
 export const GET = api(async (ctx) => {

@@ -1,8 +1,8 @@
-import { api, HttpError, json, notFound } from '../../../../lib/server/http';
-import { requireRole, requireUser } from '../../../../lib/server/auth';
-import { findVisibleCase } from '../../../../lib/server/cases.server';
-import { listUploads, receiveUpload } from '../../../../lib/server/uploads.server';
-import { uploadKindSchema } from '../../../../lib/schemas/uploads';
+import { api, HttpError, json, notFound } from '@/lib/server/http';
+import { requireRole, requireUser } from '@/lib/server/auth';
+import { findVisibleCase } from '@/lib/server/cases.server';
+import { listUploads, receiveUpload } from '@/lib/server/uploads.server';
+import { uploadKindSchema } from '@/lib/schemas/uploads';
 
 /** GET /api/cases/:id/uploads[?kind=meter_photo] — the case's uploads, oldest first. */
 export const GET = api(async (ctx) => {
