@@ -48,7 +48,9 @@ describe('registration look-up and texts, in Chromium', () => {
     const [consent] = await db.select().from(schema.textConsents).where(eq(schema.textConsents.userId, user.id));
     expect(consent!.mobile).toBe(mobile);
 
-    // The vehicle step: a petrol car on record is questioned in plain words, the make filled in.
+    // The vehicle step (after "Your home"): a petrol car on record is questioned in plain words, the make filled in.
+    await page.getByTestId('step-next').click();
+    await expect.poll(() => page.locator('#step-heading').textContent(), waitLong).toBe('Your home');
     await page.getByTestId('step-next').click();
     await expect.poll(() => page.locator('#step-heading').textContent(), waitLong).toBe('Your vehicle');
     await page.getByLabel('Registration number').fill('gw29pet');
