@@ -5,7 +5,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import type { Page } from 'playwright-core';
-import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, signInByLink, snap, waitForIslands } from './browser';
+import { baseUrl, close, DESKTOP, newPage, PHONE, problemsOf, signInByLink, snap, snapBoth, waitForIslands } from './browser';
 import { db, schema } from '../helpers/db';
 import { createCase, createUser } from '../../seeds/factories';
 
@@ -19,15 +19,6 @@ async function savedRow(caseId: string) {
 const status = (page: Page) => page.getByTestId('save-status').textContent();
 const readinessText = (text: string | null) => (text ?? '').replace(/\s+/g, ' ');
 const heading = (page: Page) => page.locator('#step-heading').textContent();
-
-async function snapBoth(page: Page, name: string) {
-  await page.evaluate(() => window.scrollTo(0, 0));
-  await snap(page, `${name}-390`);
-  await page.setViewportSize(DESKTOP);
-  await page.evaluate(() => window.scrollTo(0, 0));
-  await snap(page, `${name}-1280`);
-  await page.setViewportSize(PHONE);
-}
 
 async function openStep(page: Page, caseId: string, step: string, title: string) {
   await page.goto(`/my/cases/${caseId}#step=${step}`);
