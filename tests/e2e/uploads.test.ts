@@ -161,14 +161,15 @@ describe('photos and documents, in Chromium', () => {
     await signInByLink(page, user.email);
     await openPhotos(page, row.id);
     const camera = slot(page, 'cutout_photo').getByText('Take a photo', { exact: true });
-    await expect(camera.isVisible()).resolves.toBe(true);
+    // The slot learns it is on a touch screen once its script has run: wait for that.
+    await camera.waitFor({ state: 'visible', timeout: 10_000 });
     // The camera input asks for the rear camera (HTML Media Capture, capture="environment").
     await expect(slot(page, 'cutout_photo').locator('input[name="camera-photo"]').getAttribute('capture')).resolves.toBe('environment');
     await snap(page, 'uploads-touch-390');
     // A slot for a document (the landlord's letter, often a PDF) opens the file picker, not the camera.
     await expect(slot(page, 'landlord_permission').getByText('Take a photo', { exact: true }).count()).resolves.toBe(0);
     await expect(slot(page, 'landlord_permission').locator('input[name="camera-photo"]').count()).resolves.toBe(0);
-    await expect(slot(page, 'landlord_permission').getByText('Choose a file', { exact: true }).isVisible()).resolves.toBe(true);
+    await slot(page, 'landlord_permission').getByText('Choose a file', { exact: true }).waitFor({ state: 'visible', timeout: 10_000 });
     // Opening the slot brings Uppy's own widget, which offers the camera too.
     await slot(page, 'cutout_photo').getByTestId('drop-zone').click({ position: { x: 8, y: 8 } });
     await slot(page, 'cutout_photo').getByRole('tab', { name: 'Take a photo' }).waitFor();
