@@ -3,11 +3,12 @@
 // and required uploads as the checklist, so the two never disagree.
 import type { Checklist } from './schemas/checklist';
 import type { UploadKind } from './schemas/uploads';
-import { article, listWords } from './grammar';
-import { endSentence, quoted } from './punctuation';
+import { listWords } from './grammar';
+import { uploadNeed } from './gaps';
+import { endSentence } from './punctuation';
 import { customerGapLabel } from './vocabulary/fields';
 import { requiredUploadKinds } from './readiness/checks/documents';
-import { uploadKindLabels, uploadKindStatus } from './readiness/upload-status';
+import { uploadKindStatus } from './readiness/upload-status';
 import type { ChecklistAnswers, UploadSummary } from './readiness/types';
 import { checklistSteps, stepProgress, stepTitle, type StepId } from './checklist-steps';
 
@@ -44,9 +45,7 @@ export function customerNext(checklist: Checklist, prefilled: readonly string[],
     if (kind === 'other') continue;
     const step = uploadStep[kind];
     const title = stepTitle(step);
-    let text: string | null = null;
-    if (status.state === 'missing') text = `Send ${article(uploadKindLabels[kind])} ${uploadKindLabels[kind]}.`;
-    if (status.state === 'rejected') text = endSentence(`Send a new ${uploadKindLabels[kind]}${status.reason ? ` — your installer said: ${quoted(status.reason)}` : ''}`);
+    const text = uploadNeed(status, 'Send');
     if (text) uploadsByStep.set(step, [...(uploadsByStep.get(step) ?? []), { step, stepTitle: title, text }]);
   }
   for (const { id } of checklistSteps) {

@@ -5,7 +5,7 @@ import { article, listWords } from './grammar';
 import { customerGapLabel } from './vocabulary/fields';
 import { endSentence, quoted } from './punctuation';
 import { requiredUploadKinds } from './readiness/checks/documents';
-import { uploadKindLabels, uploadKindStatus } from './readiness/upload-status';
+import { uploadKindLabels, uploadKindStatus, type UploadKindStatus } from './readiness/upload-status';
 import type { ChecklistAnswers, UploadSummary } from './readiness/types';
 
 
@@ -24,15 +24,21 @@ export function customerGaps(checklist: Checklist, uploads: readonly UploadSumma
     gaps.push({ section: s.id, title: s.title, text: endSentence(`${s.title}: add ${listWords(fields)}`) });
   }
   for (const kind of requiredUploadKinds(checklist as ChecklistAnswers)) {
-    const status = uploadKindStatus(kind, uploads);
-    if (status.state === 'missing') gaps.push({ section: 'uploads', title: 'Photos and documents', text: `Upload ${article(uploadKindLabels[kind])} ${uploadKindLabels[kind]}.` });
-    if (status.state === 'rejected') {
-      gaps.push({
-        section: 'uploads',
-        title: 'Photos and documents',
-        text: endSentence(`Send a new ${uploadKindLabels[kind]}${status.reason ? ` — your installer said: ${quoted(status.reason)}` : ''}`),
-      });
-    }
+    const text = uploadNeed(uploadKindStatus(kind, uploads), 'Upload');
+    if (text) gaps.push({ section: 'uploads', title: 'Photos and documents', text });
   }
   return gaps;
+}
+
+/**
+ * One required upload as a sentence for the customer, or null when it is in: "Upload a …" (or
+ * "Send a …", as `missingVerb` says) when missing, "Send a new …" with the office's reason when
+ * rejected.
+ * @example uploadNeed({ kind: 'meter_photo', state: 'missing' }, 'Send') // 'Send a photo of your electricity meter.'
+ */
+export function uploadNeed(status: UploadKindStatus, missingVerb: 'Upload' | 'Send'): string | null {
+  const label = uploadKindLabels[status.kind];
+  if (status.state === 'missing') return `${missingVerb} ${article(label)} ${label}.`;
+  if (status.state === 'rejected') return endSentence(`Send a new ${label}${status.reason ? ` — your installer said: ${quoted(status.reason)}` : ''}`);
+  return null;
 }
