@@ -424,8 +424,11 @@ describe('the office, in Chromium', () => {
     const welcome = await waitForMessage(email);
     const newcomer = await newPage(PHONE);
     await newcomer.page.goto(linkIn(welcome, baseUrl));
+    // The form checks the password in its script: let it start before typing (a loaded machine is slow to).
+    await waitForIslands(newcomer.page);
     await newcomer.page.getByLabel('New password').fill('too short');
     await newcomer.page.getByRole('button', { name: 'Set my password' }).click();
+    await newcomer.page.getByText('Use at least 12 characters.').waitFor({ timeout: 10_000 });
     await expect(newcomer.page.getByText('Use at least 12 characters.').count()).resolves.toBe(1);
     const password = 'lantern meadow copper kettle';
     await newcomer.page.getByLabel('New password').fill(password);
