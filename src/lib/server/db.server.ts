@@ -68,9 +68,35 @@ export function db(): Db {
         idle_in_transaction_session_timeout: dbLimits.idleInTransaction * 1000,
       } as Record<string, unknown> as Partial<postgres.ConnectionParameters>,
     });
-    instance = drizzle(client, { schema });
+    instance = drizzle(preparing(client), { schema });
   }
   return instance;
+}
+
+/**
+ * Drizzle sends a statement unnamed unless the query is given a name, so PostgreSQL would parse
+ * and plan every query again on every call: for the office queue's search that planning cost more
+ * than running it (`npm run bench`, README). postgres.js's own habit is to name each statement
+ * and keep it on its connection, and this client asks for that on drizzle's behalf. The pool's
+ * `prepare` setting still has the last word (DATABASE_PREPARE=false behind a transaction-mode
+ * pooler sends none), and transactions and savepoints get the same client.
+ */
+function preparing(sql: postgres.Sql): postgres.Sql {
+  return new Proxy(sql, {
+    get(target, prop) {
+      if (prop === 'unsafe') {
+        return (query: string, params?: unknown[], options?: postgres.UnsafeQueryOptions) =>
+          target.unsafe(query, params as postgres.ParameterOrJSON<never>[], { ...options, prepare: true });
+      }
+      if (prop === 'begin' || prop === 'savepoint') {
+        return (...args: unknown[]) => {
+          const work = args.pop() as (tx: postgres.Sql) => unknown;
+          return (Reflect.get(target, prop) as (...a: unknown[]) => unknown)(...args, (tx: postgres.Sql) => work(preparing(tx)));
+        };
+      }
+      return Reflect.get(target, prop, target);
+    },
+  });
 }
 
 /** The raw postgres.js client, for health checks and hand-written SQL. */
