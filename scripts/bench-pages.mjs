@@ -27,8 +27,11 @@ const BUDGETS = { checklist: 120 * 1024, 'driveway plan': 80 * 1024 };
 const { default: postgres } = await import('postgres');
 
 // Runs in the page before anything else: records the largest contentful paint, and the first
-// moment a visible, enabled form field sits inside an island that has hydrated (Astro removes
-// the island's `ssr` attribute then), which is when typing into it is handled.
+// moment a visible, enabled form field will keep what is typed into it: inside an island that
+// has hydrated (Astro removes the island's `ssr` attribute then), or inside the checklist's
+// a `[data-early-answers]` element, whose fields keep what is entered before hydration (the
+// checklist's recorder and the photo slots: src/components/checklist/early-answers.ts, proved by
+// tests/e2e/early-answers.test.ts).
 const PAGE_PROBE = () => {
   const w = window;
   w.__gw = { lcp: 0, input: 0 };
@@ -38,7 +41,8 @@ const PAGE_PROBE = () => {
   const ready = () => {
     for (const el of document.querySelectorAll('astro-island input:not([type=hidden]), astro-island textarea, astro-island select')) {
       const island = el.closest('astro-island');
-      if (island.hasAttribute('ssr') || el.disabled) continue;
+      const kept = !island.hasAttribute('ssr') || el.closest('[data-early-answers]');
+      if (!kept || el.disabled) continue;
       const box = el.getBoundingClientRect();
       const shown = box.width > 0 || box.height > 0 || el.type === 'file';
       if (shown) return true;

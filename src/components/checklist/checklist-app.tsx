@@ -1,6 +1,6 @@
 // The customer's checklist island: loads the case, shows one step at a time (the step lives in
 // the URL hash, so a reload stays put), and saves every answer as the customer goes.
-import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { get, useForm } from 'react-hook-form';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { customerStage } from '@/lib/vocabulary/stages';
@@ -8,6 +8,7 @@ import { ChevronLeftIcon, ChevronRightIcon, InfoIcon, StopIcon, WarningIcon } fr
 import { confirmDetails, loadCase, patchChecklist, type CaseView } from './api-client';
 import { AutosaveQueue, type QueueListener, type SaveStatus } from './autosave-queue';
 import { ChecklistCtx, fieldId, type ChecklistContext } from './checklist-context';
+import { takeEarlyAnswers } from './early-answers';
 import { fieldByPath, fieldDefs } from './field-defs';
 import { checkFormValue, checklistToForm, formSchema, fromApiValue, type FormValues } from './form-values';
 import { localChecklist, progressOf, resumeStep, stepFromHash, stepHash, stepOfField, steps, type StepId } from './progress';
@@ -168,10 +169,25 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
     });
   }, [initialView, form, setView, applyNewer]);
 
+  // Answers typed into the server-drawn step before this script ran (early-answers.ts): back
+  // into the form before the first paint, and queued for saving. They are newer than anything
+  // kept from an earlier visit, so the restore below leaves those fields alone.
+  const early = useRef<string[]>([]);
+  useLayoutEffect(() => {
+    if (!viewRef.current.editable) return;
+    for (const [path, value] of Object.entries(takeEarlyAnswers())) {
+      const def = fieldByPath[path];
+      if (!def) continue;
+      form.setValue(path, value, { shouldDirty: true });
+      early.current.push(path);
+      if (value !== fromApiValue(def, viewRef.current.checklist)) queue.edit(path, value, 'soon');
+    }
+  }, [queue, form]);
+
   // Puts back answers typed in an earlier visit that never reached the server, then sends them.
   useEffect(() => {
     const restored = queue.restore();
-    const paths = Object.keys(restored).filter((path) => fieldByPath[path]);
+    const paths = Object.keys(restored).filter((path) => fieldByPath[path] && !early.current.includes(path));
     for (const path of paths) form.setValue(path, restored[path], { shouldDirty: true });
     if (paths.length > 0) {
       void form.trigger(paths);
@@ -275,6 +291,7 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
       helpRead,
       confirmDetails: confirm,
       confirming,
+      hydrated,
       edit(path, value, when) {
         const def = fieldByPath[path];
         if (!def || !viewRef.current.editable) return;
@@ -283,7 +300,7 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
         queue.edit(path, value, when);
       },
     }),
-    [form, queue, prefilledKey, helpRead, confirm, confirming],
+    [form, queue, prefilledKey, helpRead, confirm, confirming, hydrated],
   );
 
   const progress = progressOf(checklist, prefilled);
@@ -295,7 +312,8 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
 
   return (
     <ChecklistCtx.Provider value={ctx}>
-      <div ref={top} className="scroll-mt-4">
+      {/* data-early-answers: the page notes what is typed in here before hydration (early-answers.ts). */}
+      <div ref={top} className="scroll-mt-4" data-early-answers="">
         <header className="mb-5">
           <p className="text-sm font-semibold uppercase tracking-wide text-clay-600">Case {view.reference}</p>
           <h1 className="text-2xl font-bold text-ground-900 sm:text-3xl">Your charge point checklist</h1>
@@ -333,8 +351,8 @@ function ChecklistForm({ initialView }: { initialView: CaseView }) {
               </p>
               <p className="mb-6 text-ground-800">{step === 'review' && sent ? 'Your answers are with your installer. You can still fill a gap or correct an answer.' : intros[step]}</p>
               <form method="post" onSubmit={(e) => e.preventDefault()} noValidate>
-                {/* Disabled until hydrated, so nothing typed before the script runs is lost. */}
-                <fieldset disabled={!view.editable || !hydrated} className="min-w-0">
+                {/* Open before hydration: what is typed then is kept (early-answers.ts). */}
+                <fieldset disabled={!view.editable} className="min-w-0">
                   {step === 'about' && <AboutStep caseId={view.id} />}
                   {step === 'home' && <HomeStep caseId={view.id} />}
                   {step === 'vehicle' && <VehicleStep caseId={view.id} />}

@@ -12,6 +12,11 @@ export type ChecklistContext = {
   /** Confirms these details from the invitation (one step's). */
   confirmDetails?(paths: string[]): Promise<void>;
   confirming?: boolean;
+  /**
+   * False in the server's drawing and until the island has hydrated. Fields can be typed in
+   * before then (early-answers.ts); a control whose state lives only in the island waits.
+   */
+  hydrated?: boolean;
   /** Queues a field's new value: `soon` while typing, `now` for a choice or on leaving a field. */
   edit(path: string, value: string, when: 'soon' | 'now'): void;
 };

@@ -39,7 +39,7 @@ function awaitingRecords(lookup: ReturnType<typeof useVehicleLookup>, registrati
 
 export function VehicleStep({ caseId }: { caseId: string }) {
   const condition = useFieldValue('vehicle.condition');
-  const { form } = useChecklist();
+  const { form, hydrated } = useChecklist();
   const registration = useFieldValue('vehicle.registration');
   const vin = useFieldValue('vehicle.vin');
   const delivery = dateInWords(useFieldValue('vehicle.deliveryDate'));
@@ -59,6 +59,8 @@ export function VehicleStep({ caseId }: { caseId: string }) {
             type="checkbox"
             className="h-5 w-5 shrink-0 accent-ground-700"
             checked={notRegistered}
+            // Its state lives in the island: a tick before hydration would be undone by it.
+            disabled={!hydrated}
             onChange={(e) => setNotRegistered(e.target.checked)}
           />
           <span>

@@ -52,7 +52,8 @@ export default function UploadList({ caseId, kinds = uploadKinds, required = [],
     );
   }
   return (
-    <div className="grid items-start gap-4 lg:grid-cols-2">
+    // data-early-answers: a file chosen before hydration is kept and sent (see DropZone).
+    <div className="grid items-start gap-4 lg:grid-cols-2" data-early-answers="">
       {kinds.map((kind) => (
         <UploadSlot
           key={kind}

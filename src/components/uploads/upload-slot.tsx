@@ -54,6 +54,15 @@ function DropZone({ kind, photoOnly, touch, opening, onOpen }: { kind: UploadKin
     input.value = '';
     if (files.length) onOpen(files);
   };
+  // The zone is drawn on the server, so a photo can be chosen before the page's script has run:
+  // it waits in its input, and is sent from here as soon as the slot comes alive.
+  const inputs = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    for (const input of inputs.current?.querySelectorAll<HTMLInputElement>('input[type="file"]') ?? []) {
+      if (input.files?.length) picked(input);
+    }
+    // Once, on hydration: later choices arrive through onChange.
+  }, []);
   const stop = (event: DragEvent) => {
     event.preventDefault();
     event.stopPropagation();
@@ -79,7 +88,7 @@ function DropZone({ kind, photoOnly, touch, opening, onOpen }: { kind: UploadKin
       ) : (
         <>
           <p className="font-semibold text-ink">{touch ? (photoOnly ? 'Add a photo' : 'Add a photo or a PDF') : photoOnly ? 'Drop a photo here, or' : 'Drop a photo or PDF here, or'}</p>
-          <div className="flex flex-wrap justify-center gap-2">
+          <div ref={inputs} className="flex flex-wrap justify-center gap-2">
             <label className="btn-secondary cursor-pointer focus-within:ring-2 focus-within:ring-ground-600">
               {photoOnly ? 'Choose a photo' : 'Choose a file'}
               <input

@@ -1,6 +1,7 @@
 // Server-only: the headers every response carries. The Content-Security-Policy allows scripts
 // from our own origin plus, by SHA-256 hash, exactly the small inline scripts Astro writes to
-// hydrate islands (its island element and the client:* directive loaders). No 'unsafe-eval',
+// hydrate islands (its island element and the client:* directive loaders), and the checklist's
+// early-answer recorder. No 'unsafe-eval',
 // no 'unsafe-inline' for scripts. Styles allow inline: React and Uppy set style attributes.
 import { createHash } from 'node:crypto';
 import islandScript from 'astro/runtime/server/astro-island.prebuilt.js';
@@ -11,11 +12,15 @@ import mediaScript from 'astro/runtime/client/media.prebuilt.js';
 import onlyScript from 'astro/runtime/client/only.prebuilt.js';
 import visibleScript from 'astro/runtime/client/visible.prebuilt.js';
 import { config } from './config.server';
+import { EARLY_ANSWER_RECORDER } from '@/components/checklist/early-answers';
 
 const sha256 = (text: string) => `'sha256-${createHash('sha256').update(text, 'utf8').digest('base64')}'`;
 
-/** Hashes of the inline scripts Astro itself writes into pages (the same text in every build of this Astro version). */
-export const inlineScriptHashes = [islandScript, islandScriptDev, idleScript, loadScript, mediaScript, onlyScript, visibleScript].map(sha256);
+/**
+ * Hashes of the inline scripts Astro itself writes into pages (the same text in every build of
+ * this Astro version), and of our one own: the checklist's early-answer recorder.
+ */
+export const inlineScriptHashes = [islandScript, islandScriptDev, idleScript, loadScript, mediaScript, onlyScript, visibleScript, EARLY_ANSWER_RECORDER].map(sha256);
 
 export function contentSecurityPolicy(): string {
   return [
