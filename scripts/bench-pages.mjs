@@ -10,6 +10,10 @@
 // Slow 4G as Lighthouse's mobile preset applies it through DevTools (from memory of Lighthouse's
 // throttling constants): 150 ms round trip × 3.75 = 562.5 ms added per request, 1.6 Mbit/s × 0.9
 // down, 750 kbit/s × 0.9 up, CPU 4× slower.
+//
+// BENCH_PAGES=plan,office measures only the pages whose names contain one of those words;
+// BENCH_WATERFALL=1 also prints, for the last load of each page, when each script was asked
+// for and when it arrived (ms from navigation), to see the chain of imports.
 import { gzipSync } from 'node:zlib';
 import { chromium } from 'playwright-core';
 import { ensureNodeModules, log } from './lib/stack.mjs';
@@ -22,6 +26,8 @@ const CASES = Number(process.env.BENCH_CASES ?? 10_000);
 const NETWORK = { offline: false, latency: 562.5, downloadThroughput: (1.6 * 1024 * 1024 * 0.9) / 8, uploadThroughput: (750 * 1024 * 0.9) / 8 };
 const CPU_SLOWDOWN = 4;
 const TARGETS = { lcp: 2500, input: 3000 };
+const ONLY = (process.env.BENCH_PAGES ?? '').split(',').map((w) => w.trim()).filter(Boolean);
+const WATERFALL = process.env.BENCH_WATERFALL === '1';
 // JavaScript budgets (gzipped) from the performance issue: the checklist and the plan.
 const BUDGETS = { checklist: 120 * 1024, 'driveway plan': 80 * 1024 };
 const { default: postgres } = await import('postgres');
@@ -109,6 +115,14 @@ async function measure(context, url) {
     const nav = performance.getEntriesByType('navigation')[0];
     return { ttfb: nav.responseStart - nav.startTime, lcp: window.__gw.lcp, input: window.__gw.input };
   });
+  const waterfall = WATERFALL
+    ? await page.evaluate(() =>
+        performance
+          .getEntriesByType('resource')
+          .filter((e) => e.initiatorType === 'script' || e.initiatorType === 'link' || e.name.endsWith('.js'))
+          .map((e) => `${String(Math.round(e.startTime)).padStart(6)} → ${String(Math.round(e.responseEnd)).padStart(6)}  ${e.initiatorType.padEnd(6)} ${new URL(e.name).pathname}`),
+      )
+    : [];
   const scripts = [...requests.values()].filter((r) => r.type === 'Script');
   let gzipped = 0;
   let raw = 0;
@@ -122,7 +136,7 @@ async function measure(context, url) {
   const status = page.url().split('#')[0] === url ? 'ok' : `redirected to ${page.url()}`;
   await cdp.detach();
   await page.close();
-  return { status, files: scripts.length, raw, sent, gzipped, requests: requestCount, ...timing, encodings: [...new Set(scripts.map((s) => s.encoding ?? 'none'))] };
+  return { status, waterfall, files: scripts.length, raw, sent, gzipped, requests: requestCount, ...timing, encodings: [...new Set(scripts.map((s) => s.encoding ?? 'none'))] };
 }
 
 const median = (xs) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
@@ -151,13 +165,14 @@ try {
     ['photos (customer)', phone, `${base}/my/cases/${demo.id}/photos`],
     [`office queue, ${CASES.toLocaleString('en-GB')} cases (admin)`, office, `${base}/office`],
   ];
-  for (const [name, context, url] of pages) {
+  for (const [name, context, url] of pages.filter(([name]) => ONLY.length === 0 || ONLY.some((w) => name.includes(w)))) {
     log(`${name}: ${RUNS} cold loads…`);
     const runs = [];
     for (let i = 0; i < RUNS; i++) runs.push(await measure(context, url));
     const bad = runs.find((r) => r.status !== 'ok');
     if (bad) throw new Error(`${name}: ${bad.status}`);
     const m = (k) => median(runs.map((r) => r[k]));
+    if (WATERFALL) console.log(`\n${name}: scripts of the last load (first field ready at ${Math.round(runs.at(-1).input)} ms)\n${runs.at(-1).waterfall.join('\n')}`);
     rows.push({ name, files: m('files'), raw: m('raw'), sent: m('sent'), gzipped: m('gzipped'), requests: m('requests'), ttfb: m('ttfb'), lcp: m('lcp'), input: m('input'), encodings: runs[0].encodings });
   }
 } finally {

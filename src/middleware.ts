@@ -4,13 +4,14 @@
 //    they refused is answered 429 here, whichever URL reached them;
 // 2. paths with doubled slashes are refused; a declared body over 1 MB is refused before anything reads it;
 // 3. session: `locals.user` is the active user whose session has not been ended, or null;
-// 4. security headers on every answer.
+// 4. security headers on every answer; pages name the scripts they will import (module preloads).
 import { countOf } from './lib/grammar';
 import { defineMiddleware, sequence } from 'astro:middleware';
 import { bodyRefusal } from './lib/server/body-limit.server';
 import { isDatabaseUnavailable } from './lib/server/db-errors.server';
 import { databaseUnavailable, errorResponse, HttpError, UNAVAILABLE_HEADER } from './lib/server/http';
 import { clientAddressOf, runWithRequestState, type RequestState } from './lib/server/request-context.server';
+import { withPagePreloads } from './lib/server/module-preloads.server';
 import { withSecurityHeaders } from './lib/server/security-headers.server';
 import { sessionTokenClaims } from './lib/server/session.server';
 import { findSessionUser } from './lib/server/sessions.server';
@@ -98,4 +99,7 @@ const headers = defineMiddleware(async (ctx, next) => {
   return withSecurityHeaders(res, { signedIn: ctx.locals.user != null || ctx.url.pathname.startsWith('/api/') });
 });
 
-export const onRequest = sequence(headers, unavailableStatus, requestState, bodyCap, auth);
+// Pages list every script their islands import, so a phone asks for all of them at once.
+const preloads = defineMiddleware(async (_ctx, next) => withPagePreloads(await next()));
+
+export const onRequest = sequence(headers, preloads, unavailableStatus, requestState, bodyCap, auth);

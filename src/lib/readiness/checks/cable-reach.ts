@@ -8,10 +8,11 @@ import { formatNumber, positiveOrNull } from '@/lib/readiness/units';
 import { optionWords } from '@/lib/vocabulary/fields';
 import { cableSourceWords } from '@/lib/vocabulary/pack';
 import { portLabels, portStaffLabels, wayLabels, wayPhrases } from '@/lib/vocabulary/plan';
+import { checkTitles } from '../check-titles';
 
 // The car sizes behind the sketch are from memory (see plan.ts); staff read only "common practice".
 const SOURCE = `Geometry of the customer's driveway plan; tethered cable commonly about 5 m (IEC 62196-2 connectors; ${COMMON_PRACTICE}); slack allowance and car sizes: ${COMMON_PRACTICE}`;
-const TITLE = 'Charging cable reaches your car';
+const TITLE = checkTitles['cable-reach'];
 
 export type CableSource = 'tether' | 'tether-assumed' | 'customer-cable-assumed';
 

@@ -16,9 +16,10 @@ import { atLeast } from '@/lib/readiness/lights';
 import { COMMON_PRACTICE, type ReadinessSettings } from '@/lib/readiness/settings';
 import type { CableRoute, CheckInput, CheckResult, Light } from '@/lib/readiness/types';
 import { formatNumber, positiveOrNull, roundTo } from '@/lib/readiness/units';
+import { checkTitles } from '../check-titles';
 
 const SOURCE = `BS 7671:2018+A2:2022: Regulation 433.1.1 (Ib ≤ In ≤ Iz), 512.1.5 (terminal temperature), 523.9 (thermal insulation); Appendix 4 Tables 4D4A / 4E4A (capacity), 4E4B (voltage drop), 4B1–4B3 and 4C1 (correction factors), Table 4Ab (5% limit); long or complex routes: ${COMMON_PRACTICE}`;
-const TITLE = 'Cable from your consumer unit to the charge point';
+const TITLE = checkTitles['cable-run'];
 const COSTLY_ROUTES: readonly CableRoute[] = ['through-house', 'buried'];
 
 /** One correction factor applied to the tabulated capacity, with its source. */

@@ -3,12 +3,13 @@ import { COMMON_PRACTICE } from '@/lib/readiness/settings';
 import type { ChecklistAnswers, CheckInput, CheckResult, Light, UploadKind } from '@/lib/readiness/types';
 import { uploadKindLabels, uploadKindStatus, type UploadKindStatus } from '@/lib/readiness/upload-status';
 import { endSentence } from '@/lib/punctuation';
+import { checkTitles } from '../check-titles';
 
 /** A reason inside brackets, without the full stop the office may have typed: "(Too dark)". */
 const bracketed = (reason: string | null) => (reason ? ` (${reason.replace(/[.\s]+$/, '')})` : '');
 
 const SOURCE = `${COMMON_PRACTICE} (what the office needs before a survey)`;
-const TITLE = 'Photos and documents';
+const TITLE = checkTitles['documents'];
 const ALWAYS: readonly UploadKind[] = ['meter_photo', 'cutout_photo', 'consumer_unit_photo', 'charger_location_photo'];
 
 /**

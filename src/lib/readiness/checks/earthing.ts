@@ -4,9 +4,10 @@
 import { COMMON_PRACTICE, type ReadinessSettings } from '@/lib/readiness/settings';
 import type { CheckInput, CheckResult, Earthing, EarthingMeasure, Light } from '@/lib/readiness/types';
 import { formatNumber } from '@/lib/readiness/units';
+import { checkTitles } from '../check-titles';
 
 const SOURCE = `BS 7671:2018+A2:2022 Regulation 722.411.4.1 (PME and outdoor charging points); 411.5.3 (RA × IΔn ≤ 50 V); Table 41.5 Note 2 (above 200 Ω may not be stable; ${COMMON_PRACTICE} as applied here); 722.531.3.101 (RCD); soft ground near the charge point: ${COMMON_PRACTICE}`;
-const TITLE = 'Earthing for an outdoor charge point';
+const TITLE = checkTitles['earthing'];
 const RCD_NOTE =
   'RCD: the charging point needs its own 30 mA RCD, at least Type A; Type B, or Type A/F with an RDC-DD to BS IEC 62955, where DC fault current over 6 mA is possible (722.531.3.101).';
 const PME_RULE =

@@ -3,6 +3,7 @@ import { checkMpanCore } from '@/lib/validation/mpan';
 import { decideNetworkRoute, ENA_SOURCE, networkRouteNames, type NetworkRouteDecision } from '@/lib/readiness/network-route';
 import { COMMON_PRACTICE, type ReadinessSettings } from '@/lib/readiness/settings';
 import type { CheckInput, CheckResult, Light } from '@/lib/readiness/types';
+import { checkTitles } from '@/lib/readiness/check-titles';
 
 const SOURCE = `${ENA_SOURCE}; lead time of a supply upgrade: ${COMMON_PRACTICE}`;
 
@@ -19,7 +20,7 @@ export function checkNetworkOperator({ answers, site, settings }: CheckInput): C
   return {
     id: 'network-operator',
     light,
-    title: 'Telling the network operator',
+    title: checkTitles['network-operator'],
     customerText: customerText(decision, settings),
     staffText: staffText(decision, region, settings),
     figures: {

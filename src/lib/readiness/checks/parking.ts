@@ -3,9 +3,10 @@ import { optionWords } from '@/lib/vocabulary/fields';
 import { COMMON_PRACTICE } from '@/lib/readiness/settings';
 import type { CheckInput, CheckResult, ParkingKind } from '@/lib/readiness/types';
 import { uploadKindStatus, type UploadKindStatus } from '@/lib/readiness/upload-status';
+import { checkTitles } from '../check-titles';
 
 const SOURCE = `${COMMON_PRACTICE} (home charge points and funding schemes expect private off-street parking; check the current scheme rules)`;
-const TITLE = 'Off-street parking';
+const TITLE = checkTitles['parking'];
 
 /**
  * No parking is red; a detached bay is green only with accepted evidence, red when the evidence

@@ -6,12 +6,13 @@ import { atLeast, worstLight } from '@/lib/readiness/lights';
 import { COMMON_PRACTICE, type ReadinessSettings } from '@/lib/readiness/settings';
 import type { CheckInput, CheckResult, ChecklistAnswers, Light } from '@/lib/readiness/types';
 import { formatNumber, roundTo } from '@/lib/readiness/units';
+import { checkTitles } from '../check-titles';
 
 /** Largest standard domestic cut-out rating (BS 7657 ratings 60, 80, 100 A). */
 export const LARGEST_DOMESTIC_FUSE_AMPS = 100;
 
 const SOURCE = `${TABLE_A2}; ${REG_722_311}; 230 V nominal: ESQCR 2002 (SI 2002/2665); 11 kW ≈ 16 A and 22 kW ≈ 32 A per phase: ${COMMON_PRACTICE}; 60 A usually needs an upgrade, 100 A usually fine: ${COMMON_PRACTICE}`;
-const TITLE = 'Room on your supply for the charge point';
+const TITLE = checkTitles['supply-headroom'];
 const FUSE_CAUTION =
   "Please don't open the cut-out or remove any covers: only your network operator may change the main fuse.";
 

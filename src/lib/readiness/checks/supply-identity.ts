@@ -1,12 +1,13 @@
 // Supply identity: the MPAN core is present, passes its check digit and names a region.
 import { checkMpanCore, INDEPENDENT_NETWORK } from '@/lib/validation/mpan';
 import type { CheckInput, CheckResult } from '@/lib/readiness/types';
+import { checkTitles } from '../check-titles';
 
 // The independent-network IDs 24–37 are from memory, not seen in the market operator's list: staff
 // are told to confirm an unfamiliar ID against that published list instead.
 const SOURCE =
   "The market operator's MPAN definition (Master Registration Agreement): check digit weights 3, 5, 7, 13, 17, 19, 23, 29, 31, 37, 41, 43, sum mod 11 mod 10; distributor IDs 10–23 the 14 GB distribution regions, 24 and above independent network operators (confirm an unfamiliar ID against the market operator's published list)";
-const TITLE = 'Your electricity supply number (MPAN)';
+const TITLE = checkTitles['supply-identity'];
 
 /**
  * Missing is amber; a core that fails the check is red; a valid core is green with its region.

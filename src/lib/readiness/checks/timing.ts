@@ -4,9 +4,10 @@ import { addDays, isoDayNumber } from '@/lib/readiness/dates';
 import { decideNetworkRoute, ENA_SOURCE, networkRouteNames } from '@/lib/readiness/network-route';
 import { COMMON_PRACTICE, type ReadinessSettings } from '@/lib/readiness/settings';
 import type { CheckInput, CheckResult, Light } from '@/lib/readiness/types';
+import { checkTitles } from '../check-titles';
 
 const SOURCE = `Lead times from settings (${COMMON_PRACTICE}); network operator step: ${ENA_SOURCE}`;
-const TITLE = 'Ready before your car arrives';
+const TITLE = checkTitles['timing'];
 
 export interface LeadTime {
   surveyLeadDays: number;
