@@ -36,7 +36,7 @@ const { default: postgres } = await import('postgres');
 // moment a visible, enabled form field will keep what is typed into it: inside an island that
 // has hydrated (Astro removes the island's `ssr` attribute then), or inside the checklist's
 // a `[data-early-answers]` element, whose fields keep what is entered before hydration (the
-// checklist's recorder and the photo slots: src/components/checklist/early-answers.ts, proved by
+// checklist's recorder and the photo slots: src/lib/early-answers.ts, proved by
 // tests/e2e/early-answers.test.ts).
 const PAGE_PROBE = () => {
   const w = window;

@@ -8,7 +8,7 @@ import { ChevronLeftIcon, ChevronRightIcon, InfoIcon, StopIcon, WarningIcon } fr
 import { confirmDetails, loadCase, patchChecklist, type CaseView } from './api-client';
 import { AutosaveQueue, type QueueListener, type SaveStatus } from './autosave-queue';
 import { ChecklistCtx, fieldId, type ChecklistContext } from './checklist-context';
-import { takeEarlyAnswers } from './early-answers';
+import { takeEarlyAnswers } from '@/lib/early-answers';
 import { fieldByPath, fieldDefs } from './field-defs';
 import { checkFormValue, checklistToForm, formSchema, fromApiValue, type FormValues } from './form-values';
 import { localChecklist, progressOf, resumeStep, stepFromHash, stepHash, stepOfField, steps, type StepId } from './progress';

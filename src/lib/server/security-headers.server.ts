@@ -12,7 +12,7 @@ import mediaScript from 'astro/runtime/client/media.prebuilt.js';
 import onlyScript from 'astro/runtime/client/only.prebuilt.js';
 import visibleScript from 'astro/runtime/client/visible.prebuilt.js';
 import { config } from './config.server';
-import { EARLY_ANSWER_RECORDER } from '@/components/checklist/early-answers';
+import { EARLY_ANSWER_RECORDER } from '@/lib/early-answers';
 
 const sha256 = (text: string) => `'sha256-${createHash('sha256').update(text, 'utf8').digest('base64')}'`;
 
