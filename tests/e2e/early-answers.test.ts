@@ -24,15 +24,20 @@ async function holdScripts(page: Page): Promise<() => void> {
   return release;
 }
 
+/** A new customer with a case, signed in on a phone, with `path` (under the case) opened while its scripts are held. */
+async function openHeld(name: string, addressLine1: string, path: string) {
+  const user = await createUser(db, { role: 'customer', name });
+  const theCase = await createCase(db, { customerId: user.id, addressLine1, town: 'Brackenford' });
+  const { page } = await newPage(PHONE);
+  await signInByLink(page, user.email);
+  const release = await holdScripts(page);
+  await page.goto(`${baseUrl}/my/cases/${theCase.id}${path}`, { waitUntil: 'commit' });
+  return { page, theCase, release };
+}
+
 describe('answers typed before the checklist has hydrated', () => {
   it('are kept through hydration and saved like any other answer', async () => {
-    const user = await createUser(db, { role: 'customer', name: 'Perpetua Lind' });
-    const theCase = await createCase(db, { customerId: user.id, addressLine1: '3 Sorrel Yard', town: 'Brackenford' });
-    const { page } = await newPage(PHONE);
-    await signInByLink(page, user.email);
-
-    const release = await holdScripts(page);
-    await page.goto(`${baseUrl}/my/cases/${theCase.id}`, { waitUntil: 'commit' });
+    const { page, theCase, release } = await openHeld('Perpetua Lind', '3 Sorrel Yard', '');
     await expect.poll(() => page.locator('#step-heading').textContent()).toBe('About you');
     expect(await page.locator('astro-island[ssr]').count()).toBeGreaterThan(0);
 
@@ -62,13 +67,7 @@ describe('answers typed before the checklist has hydrated', () => {
   });
 
   it('a photo chosen before the photos page has hydrated is sent once it has', async () => {
-    const user = await createUser(db, { role: 'customer', name: 'Ottilie Marsh' });
-    const theCase = await createCase(db, { customerId: user.id, addressLine1: '11 Teasel Row', town: 'Brackenford' });
-    const { page } = await newPage(PHONE);
-    await signInByLink(page, user.email);
-
-    const release = await holdScripts(page);
-    await page.goto(`${baseUrl}/my/cases/${theCase.id}/photos`, { waitUntil: 'commit' });
+    const { page, theCase, release } = await openHeld('Ottilie Marsh', '11 Teasel Row', '/photos');
     await uploadSlot(page, 'meter_photo').getByTestId('drop-zone').waitFor({ timeout: 10_000 });
     expect(await page.locator('astro-island[ssr]').count()).toBeGreaterThan(0);
     await slotFileInput(page, 'meter_photo').setInputFiles({ name: 'meter.png', mimeType: 'image/png', buffer: await smallImage('png', 900, 1200) });

@@ -10,6 +10,7 @@ import { fileURLToPath } from 'node:url';
 
 export type PreloadMap = Record<string, string[]>;
 
+// The name scripts/lib/module-preloads.mjs writes (MODULE_PRELOADS_FILE there).
 const FILE = 'module-preloads.json';
 let loaded: PreloadMap | null = null;
 
@@ -42,8 +43,8 @@ const escapeAttr = (s: string) => s.replace(/&/g, '&amp;').replace(/"/g, '&quot;
 export function withModulePreloads(html: string, map: PreloadMap): string {
   const head = html.indexOf('</head>');
   if (head < 0) return html;
-  const named = new Set<string>();
-  for (const m of html.matchAll(MODULE_SCRIPT)) named.add((m[1] ?? m[2])!);
+  const pageScripts = [...html.matchAll(MODULE_SCRIPT)].map((m) => (m[1] ?? m[2])!);
+  const named = new Set<string>(pageScripts);
   for (const m of html.matchAll(ALREADY_PRELOADED)) named.add(m[1]!);
   const wanted: string[] = [];
   const want = (url: string) => {
@@ -54,7 +55,7 @@ export function withModulePreloads(html: string, map: PreloadMap): string {
     want(m[1]!);
     for (const dep of map[m[1]!] ?? []) want(dep);
   }
-  for (const m of html.matchAll(MODULE_SCRIPT)) for (const dep of map[(m[1] ?? m[2])!] ?? []) want(dep);
+  for (const script of pageScripts) for (const dep of map[script] ?? []) want(dep);
   if (wanted.length === 0) return html;
   const links = wanted.map((url) => `<link rel="modulepreload" href="${escapeAttr(url)}">`).join('');
   return html.slice(0, head) + links + html.slice(head);
